@@ -40,7 +40,9 @@ export interface RankedSubset {
 }
 
 export interface SweepProgress {
+  /** Subsets scored so far (rank-deficient ones are not included). */
   evaluated: number;
+  /** Rank-deficient subsets skipped so far; evaluated + rejected is the number of subsets covered. */
   rejected: number;
 }
 
@@ -54,12 +56,19 @@ export interface SweepOptions {
   pivotTolerance?: number;
   /** Called at checkpoints, at least every 50 ms of work. */
   onProgress?: (progress: SweepProgress) => void;
+  /**
+   * Least time between two checkpoints in milliseconds (default 25). 0 calls them as often as the kernel
+   * reads the clock, which tests use to stop early on small problems.
+   */
+  checkpointMs?: number;
   /** Checked at the same checkpoints; returning true stops the sweep with partial results. */
   shouldStop?: () => boolean;
 }
 
 export interface SweepOutcome {
+  /** Subsets scored (rank-deficient ones are not included). */
   evaluated: number;
+  /** Rank-deficient subsets skipped. */
   rejected: number;
   /** True when shouldStop ended the work before every slice was done. */
   stopped: boolean;
@@ -67,4 +76,64 @@ export interface SweepOutcome {
   best: RankedSubset[];
   /** Best subsets per size, lowest RSS first, at most `top` each. */
   bestBySize: Record<number, RankedSubset[]>;
+  /**
+   * Slices not yet done when the sweep stopped (empty when it finished); sweeping them later and merging the
+   * outcomes gives the same result as an uninterrupted sweep.
+   */
+  remaining?: SweepSlice[];
+}
+
+/** A GramProblem and the Euclidean norms the columns of A were divided by. */
+export interface FormedGramProblem {
+  problem: GramProblem;
+  /** Norm of each original column; coefficients of the scaled problem divided by these fit the original. */
+  columnNorms: Float64Array;
+}
+
+/**
+ * Forms G = A^T A, b = A^T y and y^T y with every column of A scaled to unit norm, from a row-major
+ * N x m matrix whose first `knownCount` columns are the known terms. A column of zeros cannot be scaled
+ * and is an error naming that column.
+ */
+export function formGramProblem(
+  matrix: Float64Array,
+  rowCount: number,
+  columnCount: number,
+  y: Float64Array,
+  knownCount: number,
+): FormedGramProblem {
+  if (matrix.length !== rowCount * columnCount) {
+    throw new RangeError(`the matrix must have ${rowCount} x ${columnCount} entries, got ${matrix.length}`);
+  }
+  if (y.length !== rowCount) throw new RangeError(`the right side must have ${rowCount} entries, got ${y.length}`);
+  const m = columnCount;
+  const gram = new Float64Array(m * m);
+  const rhs = new Float64Array(m);
+  let yty = 0;
+  for (let r = 0; r < rowCount; r++) {
+    const offset = r * m;
+    const yr = y[r];
+    yty += yr * yr;
+    for (let i = 0; i < m; i++) {
+      const a = matrix[offset + i];
+      if (a === 0) continue;
+      rhs[i] += a * yr;
+      for (let j = i; j < m; j++) gram[i * m + j] += a * matrix[offset + j];
+    }
+  }
+  const columnNorms = new Float64Array(m);
+  for (let i = 0; i < m; i++) {
+    const norm = Math.sqrt(gram[i * m + i]);
+    if (!(norm > 0)) throw new RangeError(`column ${i} is zero on every row and cannot be scaled`);
+    columnNorms[i] = norm;
+  }
+  for (let i = 0; i < m; i++) {
+    rhs[i] /= columnNorms[i];
+    for (let j = i; j < m; j++) {
+      const scaled = i === j ? 1 : gram[i * m + j] / (columnNorms[i] * columnNorms[j]);
+      gram[i * m + j] = scaled;
+      gram[j * m + i] = scaled;
+    }
+  }
+  return { problem: { columnCount: m, knownCount, gram, rhs, yty }, columnNorms };
 }
