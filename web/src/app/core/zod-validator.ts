@@ -1,0 +1,13 @@
+import type { AbstractControl, ValidationErrors, ValidatorFn } from '@angular/forms';
+import type { z } from 'zod';
+
+/**
+ * A form validator from a shared zod schema, so a field shows the same sentence the server would answer with.
+ * The error is `{ schema: message }`.
+ */
+export function zodValidator(schema: z.ZodType): ValidatorFn {
+  return (control: AbstractControl): ValidationErrors | null => {
+    const result = schema.safeParse(control.value);
+    return result.success ? null : { schema: result.error.issues[0]?.message ?? 'Check this value.' };
+  };
+}

@@ -1,0 +1,46 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import type { ProjectSummary } from '../../../../../shared/schemas/project';
+import { toApiFailure } from '../../core/api-failure';
+import { Session } from '../../core/session';
+import { ProjectCard } from './project-card';
+import { ProjectsApi } from './projects-api';
+
+/** The signed-in user's projects, most recently changed first. */
+@Component({
+  selector: 'app-projects-page',
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, ProjectCard],
+  templateUrl: './projects-page.html',
+  styleUrl: './projects-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ProjectsPage {
+  private readonly projectsApi = inject(ProjectsApi);
+  private readonly session = inject(Session);
+
+  protected readonly teamName = computed(() => this.session.user()?.team.name ?? '');
+  protected readonly loading = signal(true);
+  protected readonly failure = signal<string | null>(null);
+  private readonly projects = signal<ProjectSummary[]>([]);
+  protected readonly newestFirst = computed(() =>
+    [...this.projects()].sort((a, b) => Date.parse(b.updatedAt) - Date.parse(a.updatedAt)),
+  );
+
+  constructor() {
+    void this.load();
+  }
+
+  protected async load(): Promise<void> {
+    this.loading.set(true);
+    this.failure.set(null);
+    try {
+      this.projects.set(await this.projectsApi.list());
+    } catch (err) {
+      this.failure.set(toApiFailure(err).message);
+    } finally {
+      this.loading.set(false);
+    }
+  }
+}
