@@ -10,6 +10,7 @@ import {
   viewChild,
 } from '@angular/core';
 import { type AbstractControl, FormBuilder, ReactiveFormsModule } from '@angular/forms';
+import type { ErrorStateMatcher } from '@angular/material/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -55,6 +56,8 @@ export class SignInPage {
     email: ['', zodValidator(signInSchema.shape.email)],
     password: ['', zodValidator(signInSchema.shape.password)],
   });
+  /** Field errors show once a field was left or the form was sent (submit marks all touched), not before. */
+  protected readonly touchedFields: ErrorStateMatcher = { isErrorState: (control) => !!control?.invalid && control.touched };
   protected readonly pending = signal(false);
   protected readonly passwordShown = signal(false);
   private readonly failure = signal<string | null>(null);
