@@ -1,0 +1,16 @@
+import type { Request } from 'express';
+import type { z } from 'zod';
+import { HttpError } from './http-error.js';
+
+/** Validates a request body against a shared schema; on failure answers 400 with a message per field. */
+export function parseBody<S extends z.ZodType>(schema: S, req: Request): z.output<S> {
+  const result = schema.safeParse(req.body ?? {});
+  if (result.success) return result.data;
+  const fields: Record<string, string> = {};
+  for (const issue of result.error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '(body)';
+    fields[key] ??= issue.message;
+  }
+  const summary = Object.entries(fields).map(([key, message]) => `${key}: ${message}`).join('; ');
+  throw new HttpError(400, 'invalid_body', `The request body is not valid. ${summary}`, fields);
+}
