@@ -1,0 +1,86 @@
+import { z } from 'zod';
+import { derivativeSettingsSchema, balanceSettingsSchema, referenceTermSchema } from './sweep-description.js';
+
+/*
+ * What a finished discovery reports (the command line prints it as JSON; the API will store and serve it).
+ * Expressions are in the notation users type, numbers inside them as String(x), which round-trips doubles.
+ */
+
+export const discoveredModelSchema = z.object({
+  /** Number of candidate terms beyond the known ones. */
+  size: z.number().int(),
+  /** Known terms, chosen candidates, and the reference term last when there is one. */
+  terms: z.array(z.string()),
+  /** Energy coefficient of each term (the reference term's is the fixed value). */
+  coefficients: z.array(z.number()),
+  energy: z.string(),
+  lagrangian: z.string(),
+  /** Lagrangian coefficient of each term; null where the energy cannot determine it. */
+  lagrangianCoefficients: z.array(z.number().nullable()),
+  /** Terms of velocity degree one: invisible in the energy, so their Lagrangian coefficient is unknown. */
+  notIdentifiable: z.array(z.string()),
+  /** rms(Lambda d - E) / rms(E) of the Legendre step; near zero when E is the Hamiltonian of such an L. */
+  legendreResidual: z.number(),
+  rss: z.number(),
+  trainRmse: z.number(),
+  validationRmse: z.number().nullable(),
+  r2: z.number().nullable(),
+  bic: z.number(),
+  /** Condition number of the fitted columns scaled to unit norm. */
+  conditionNumber: z.number(),
+});
+export type DiscoveredModel = z.infer<typeof discoveredModelSchema>;
+
+/** The best model of one size, for the front of error against size. */
+export const sizeFrontEntrySchema = z.object({
+  size: z.number().int(),
+  terms: z.array(z.string()),
+  trainRmse: z.number(),
+  validationRmse: z.number().nullable(),
+  bic: z.number(),
+  /** Root mean square residual expected from the noise in the signals alone, when it could be estimated. */
+  noiseFloorRmse: z.number().nullable(),
+});
+export type SizeFrontEntry = z.infer<typeof sizeFrontEntrySchema>;
+
+export const excludedTermSchema = z.object({ term: z.string(), reason: z.string() });
+
+export const signalReportSchema = z.object({
+  /** The estimator and its parameters as requested. */
+  estimator: derivativeSettingsSchema,
+  /** The same in words. */
+  description: z.string(),
+  velocities: z.enum(['estimated', 'measured', 'measured and estimated']),
+  accelerations: z.enum(['estimated', 'not needed']),
+});
+
+export const discoveryResultSchema = z.object({
+  evaluated: z.number().int(),
+  rejected: z.number().int(),
+  seconds: z.number(),
+  form: z.enum(['derivative', 'balance']),
+  balance: balanceSettingsSchema.nullable(),
+  signals: signalReportSchema,
+  trainingRows: z.number().int(),
+  validationRows: z.number().int().nullable(),
+  candidateCount: z.number().int(),
+  known: z.array(z.string()),
+  reference: referenceTermSchema.nullable(),
+  /** How models of different sizes were ranked. */
+  rankedBy: z.enum(['validation', 'bic']),
+  models: z.array(discoveredModelSchema),
+  front: z.array(sizeFrontEntrySchema),
+  best: z
+    .object({
+      terms: z.array(z.string()),
+      coefficients: z.array(z.number()),
+      energy: z.string(),
+      lagrangian: z.string(),
+      notIdentifiable: z.array(z.string()),
+    })
+    .nullable(),
+  excluded: z.array(excludedTermSchema),
+  warnings: z.array(z.string()),
+  caution: z.string(),
+});
+export type DiscoveryResult = z.infer<typeof discoveryResultSchema>;
