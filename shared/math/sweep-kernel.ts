@@ -61,12 +61,13 @@ class SweepWorkspace {
   readonly pivotLeft: Float64Array;
   /** E_k(t) at k * n + t; level 0 is b'. */
   readonly rhsLeft: Float64Array;
-  readonly inversePivot: Float64Array;
-  readonly zeta: Float64Array;
   /** RSS of the known terms plus prefix members 0..j. */
   readonly rssAfter: Float64Array;
-  readonly weights: Float64Array;
+  /** Row of the Schur complement for the next-to-last member, over the last member's candidates. */
+  readonly schurRow: Float64Array;
   readonly members: Int32Array;
+  /** Offset of a row of zeros in `rows`, standing in for stored rows a short prefix does not have. */
+  readonly zeroRowOffset: number;
   evaluated = 0;
   rejected = 0;
   work = 0;
@@ -82,17 +83,16 @@ class SweepWorkspace {
     this.gram = reduced.gram;
     this.yty = reduced.yty;
     this.tolerance = tolerance;
-    this.rows = new Float64Array(levels * n);
+    this.rows = new Float64Array((levels + 1) * n);
+    this.zeroRowOffset = levels * n;
     this.pivotLeft = new Float64Array(levels * n);
     this.rhsLeft = new Float64Array(levels * n);
     for (let t = 0; t < n; t++) {
       this.pivotLeft[t] = reduced.gram[t * n + t];
       this.rhsLeft[t] = reduced.rhs[t];
     }
-    this.inversePivot = new Float64Array(levels);
-    this.zeta = new Float64Array(levels);
     this.rssAfter = new Float64Array(levels);
-    this.weights = new Float64Array(levels);
+    this.schurRow = new Float64Array(n);
     this.members = new Int32Array(levels);
     this.options = options;
     this.checkpointMs = options.checkpointMs ?? DEFAULT_CHECKPOINT_MS;
@@ -201,19 +201,18 @@ function sweepSingles(workspace: SweepWorkspace, board: Leaderboard, firstRank: 
 
 /**
  * Subsets of size >= 2 with ranks firstRank..endRank-1. Positions 0..size-3 are prefix levels with stored
- * rows; position size-2 is fused with the last one in `scoreLastMembers`.
+ * rows; the last two positions are enumerated together in `scoreLastTwo`.
  */
 function sweepSize(workspace: SweepWorkspace, board: Leaderboard, size: number, firstRank: number, endRank: number): number {
   const n = workspace.n;
   const members = workspace.members;
   unrankSubsetInto(firstRank, n, size, members);
-  const prefixLength = size - 1;
+  const stored = size - 2;
   let rank = firstRank;
   let rebuildFrom = 0;
   let atStart = true;
   while (rank < endRank) {
-    const deficientLevel = buildPrefix(workspace, rebuildFrom, prefixLength);
-    let advanceLevel: number;
+    const deficientLevel = buildPrefix(workspace, rebuildFrom, stored);
     if (deficientLevel >= 0) {
       // Every subset sharing a rank-deficient prefix is rank deficient: count the whole block at once.
       const blockSize = binomial(n - 1 - members[deficientLevel], size - 1 - deficientLevel);
@@ -222,18 +221,16 @@ function sweepSize(workspace: SweepWorkspace, board: Leaderboard, size: number, 
       workspace.rejected += blockEnd - rank;
       workspace.work += 1;
       rank = blockEnd;
-      advanceLevel = deficientLevel;
+      if (rank >= endRank) break;
+      rebuildFrom = advance(members, deficientLevel, n, size);
     } else {
-      const firstLast = members[size - 1];
-      const count = Math.min(n - firstLast, endRank - rank);
-      scoreLastMembers(workspace, board, prefixLength, firstLast, firstLast + count);
-      rank += count;
-      advanceLevel = prefixLength - 1;
+      rank += scoreLastTwo(workspace, board, stored, endRank - rank);
+      if (rank >= endRank) break;
+      // Paused inside the block so that the clock gets read: resume there, nothing to rebuild.
+      rebuildFrom = members[size - 2] < n - 1 ? stored : advance(members, stored - 1, n, size);
     }
-    if (rank >= endRank) break;
-    if (workspace.work >= CLOCK_STRIDE && workspace.checkpoint()) return rank;
-    rebuildFrom = advance(members, advanceLevel, n, size);
     atStart = false;
+    if (workspace.work >= CLOCK_STRIDE && workspace.checkpoint()) return rank;
   }
   return rank;
 }
@@ -259,23 +256,19 @@ function advance(members: Int32Array, level: number, n: number, size: number): n
 }
 
 /**
- * Factors prefix levels from..prefixLength-1 for the current members. Levels before the last prefix level
- * also store their row of L and the leftover pivots and right sides of every later candidate.
- * Returns the first rank-deficient level, or -1.
+ * Factors prefix levels from..stored-1 for the current members: each stores its row of L and the leftover
+ * pivots and right sides of every later candidate. Returns the first rank-deficient level, or -1.
  */
-function buildPrefix(workspace: SweepWorkspace, from: number, prefixLength: number): number {
-  const { n, gram, rows, pivotLeft, rhsLeft, members, tolerance, inversePivot, zeta, rssAfter } = workspace;
-  for (let level = from; level < prefixLength; level++) {
+function buildPrefix(workspace: SweepWorkspace, from: number, stored: number): number {
+  const { n, gram, rows, pivotLeft, rhsLeft, members, tolerance, rssAfter } = workspace;
+  for (let level = from; level < stored; level++) {
     const chosen = members[level];
     const levelOffset = level * n;
     const pivot = pivotLeft[levelOffset + chosen];
     if (!(pivot >= tolerance)) return level;
     const inverse = 1 / Math.sqrt(pivot);
     const z = rhsLeft[levelOffset + chosen] * inverse;
-    inversePivot[level] = inverse;
-    zeta[level] = z;
     rssAfter[level] = (level === 0 ? workspace.yty : rssAfter[level - 1]) - z * z;
-    if (level === prefixLength - 1) break;
     const nextOffset = levelOffset + n;
     const gramRow = chosen * n;
     for (let t = chosen + 1; t < n; t++) {
@@ -286,55 +279,121 @@ function buildPrefix(workspace: SweepWorkspace, from: number, prefixLength: numb
       pivotLeft[nextOffset + t] = pivotLeft[levelOffset + t] - l * l;
       rhsLeft[nextOffset + t] = rhsLeft[levelOffset + t] - l * z;
     }
-    workspace.work += n - chosen;
+    workspace.work += (n - chosen) * (level + 1);
   }
   return -1;
 }
 
+/** Stored rows folded into the innermost loop itself; rows beyond these are subtracted in separate passes. */
+const FUSED_ROWS = 4;
+
 /**
- * The innermost loop: the prefix (members 0..prefixLength-1) is fixed and factored; every candidate
- * firstLast..endLast-1 as the last member costs a short dot product, one division and a comparison.
+ * The innermost loops. With the prefix (members 0..stored-1) factored, enumerates the last two members
+ * (a, t) from the position in members[stored], members[stored+1], for at most `budget` subsets. For each a,
+ * row a of the remaining Schur complement, S[a, t] = G'[a, t] - sum_i l_i(a) l_i(t), is formed inside the
+ * loop over t from up to four stored rows (unused ones have weight 0, and x - 0 * y is exactly x); deeper
+ * prefixes first subtract their other rows in separate passes. Each t then costs the pivot, the right side
+ * and a multiplication: the division giving the RSS is only paid when the subset can enter the board.
+ * Pauses after a row of a when the work counter calls for a clock read, and leaves the next position in
+ * members (members[stored] = n - 1 when the block is done). Returns the subsets covered.
  */
-function scoreLastMembers(
-  workspace: SweepWorkspace,
-  board: Leaderboard,
-  prefixLength: number,
-  firstLast: number,
-  endLast: number,
-): void {
-  const { n, gram, rows, pivotLeft, rhsLeft, members, tolerance, weights } = workspace;
-  const level = prefixLength - 1;
-  const chosen = members[level];
-  const inverse = workspace.inversePivot[level];
-  const z = workspace.zeta[level];
-  const base = workspace.rssAfter[level];
-  const levelOffset = level * n;
-  const gramRow = chosen * n;
-  for (let i = 0; i < level; i++) weights[i] = rows[i * n + chosen];
-  let threshold = board.threshold;
+function scoreLastTwo(workspace: SweepWorkspace, board: Leaderboard, stored: number, budget: number): number {
+  const { n, gram, rows, pivotLeft, rhsLeft, members, tolerance, schurRow, zeroRowOffset } = workspace;
+  const size = stored + 2;
+  const levelOffset = stored * n;
+  const prefixRss = stored === 0 ? workspace.yty : workspace.rssAfter[stored - 1];
+  const offset0 = stored > 0 ? 0 : zeroRowOffset;
+  const offset1 = stored > 1 ? n : zeroRowOffset;
+  const offset2 = stored > 2 ? 2 * n : zeroRowOffset;
+  const offset3 = stored > 3 ? 3 * n : zeroRowOffset;
+  const source = stored > FUSED_ROWS ? schurRow : gram;
+  let a = members[stored];
+  let firstT = members[stored + 1];
+  let covered = 0;
   let rejected = 0;
-  for (let t = firstLast; t < endLast; t++) {
-    let sum = gram[gramRow + t];
-    for (let i = 0; i < level; i++) sum -= weights[i] * rows[i * n + t];
-    const l = sum * inverse;
-    const d = pivotLeft[levelOffset + t] - l * l;
-    if (!(d >= tolerance)) {
-      rejected++;
-      continue;
+  let work = 0;
+  let threshold = board.threshold;
+  while (a < n - 1 && covered < budget) {
+    const count = Math.min(n - firstT, budget - covered);
+    const endT = firstT + count;
+    const pivotA = pivotLeft[levelOffset + a];
+    if (!(pivotA >= tolerance)) {
+      rejected += count;
+    } else {
+      const inverse = 1 / Math.sqrt(pivotA);
+      const z = rhsLeft[levelOffset + a] * inverse;
+      const base = prefixRss - z * z;
+      let sourceOffset = a * n;
+      if (stored > FUSED_ROWS) {
+        subtractDeepRows(workspace, stored, a, firstT, endT);
+        sourceOffset = 0;
+      }
+      const w0 = rows[offset0 + a] * (stored > 0 ? 1 : 0);
+      const w1 = rows[offset1 + a] * (stored > 1 ? 1 : 0);
+      const w2 = rows[offset2 + a] * (stored > 2 ? 1 : 0);
+      const w3 = rows[offset3 + a] * (stored > 3 ? 1 : 0);
+      let cut = entryCut(base, threshold);
+      for (let t = firstT; t < endT; t++) {
+        const schur = source[sourceOffset + t] - w0 * rows[offset0 + t] - w1 * rows[offset1 + t] - w2 * rows[offset2 + t] - w3 * rows[offset3 + t];
+        const l = schur * inverse;
+        const d = pivotLeft[levelOffset + t] - l * l;
+        if (!(d >= tolerance)) {
+          rejected++;
+          continue;
+        }
+        const e = rhsLeft[levelOffset + t] - l * z;
+        // RSS = base - e^2/d <= threshold, tested without dividing; the exact test follows.
+        if (e * e >= cut * d) {
+          let rss = base - (e * e) / d;
+          if (rss < 0) rss = 0;
+          if (rss <= threshold) {
+            members[stored] = a;
+            members[stored + 1] = t;
+            board.offer(rss, members, size);
+            threshold = board.threshold;
+            cut = entryCut(base, threshold);
+          }
+        }
+      }
     }
-    const e = rhsLeft[levelOffset + t] - l * z;
-    let rss = base - (e * e) / d;
-    if (rss < 0) rss = 0;
-    if (rss <= threshold) {
-      members[prefixLength] = t;
-      board.offer(rss, members, prefixLength + 1);
-      threshold = board.threshold;
+    covered += count;
+    work += count * (stored + 1);
+    if (endT < n) {
+      firstT = endT;
+      break;
     }
+    a++;
+    firstT = a + 1;
+    if (work >= CLOCK_STRIDE) break;
   }
-  const count = endLast - firstLast;
+  members[stored] = a;
+  members[stored + 1] = firstT;
   workspace.rejected += rejected;
-  workspace.evaluated += count - rejected;
-  workspace.work += count;
+  workspace.evaluated += covered - rejected;
+  workspace.work += work;
+  return covered;
+}
+
+/**
+ * A subset can enter the board only if base - e^2/d <= threshold, i.e. e^2 >= (base - threshold) d. The cut is
+ * lowered by a margin far above the rounding of either form, so the cheap test never turns away a subset the
+ * exact test would keep. +Infinity lets everything through; -Infinity (a board of length 0) gives NaN, which
+ * nothing passes.
+ */
+function entryCut(base: number, threshold: number): number {
+  return base - threshold - 1e-12 * (Math.abs(base) + Math.abs(threshold));
+}
+
+/** schurRow[t] = G'[a, t] minus the contributions of stored rows FUSED_ROWS..stored-1, for t in firstT..endT-1. */
+function subtractDeepRows(workspace: SweepWorkspace, stored: number, a: number, firstT: number, endT: number): void {
+  const { n, gram, rows, schurRow } = workspace;
+  const gramRow = a * n;
+  for (let t = firstT; t < endT; t++) schurRow[t] = gram[gramRow + t];
+  for (let i = FUSED_ROWS; i < stored; i++) {
+    const rowOffset = i * n;
+    const weight = rows[rowOffset + a];
+    for (let t = firstT; t < endT; t++) schurRow[t] -= weight * rows[rowOffset + t];
+  }
 }
 
 /** Step 1: factor the known block once and return the Schur complement problem over the candidates. */
