@@ -13,14 +13,19 @@ function requestId(req: IncomingMessage, res: ServerResponse): string {
   return id;
 }
 
+/** Express strips the mount path from req.url inside routers; originalUrl keeps it. */
+function fullPath(req: IncomingMessage): string {
+  return (req as IncomingMessage & { originalUrl?: string }).originalUrl ?? req.url ?? '';
+}
+
 /** One log line per request with its id, method, path, status and time; req.log carries the id for handlers. */
 export function requestLogging(logger: Logger) {
   return pinoHttp({
     logger,
     genReqId: requestId,
     customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
-    customSuccessMessage: (req, res) => `${req.method} ${req.url} ${res.statusCode}`,
-    customErrorMessage: (req, res) => `${req.method} ${req.url} ${res.statusCode}`,
+    customSuccessMessage: (req, res) => `${req.method} ${fullPath(req)} ${res.statusCode}`,
+    customErrorMessage: (req, res) => `${req.method} ${fullPath(req)} ${res.statusCode}`,
     serializers: {
       req: (req: { id: string; method: string; url: string; remoteAddress?: string }) => ({
         id: req.id,
