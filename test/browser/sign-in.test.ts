@@ -100,6 +100,26 @@ describe('signing in through the web app', function () {
     expectCleanPage(tab, [refused]);
   });
 
+  it('asks to wait after too many failed sign-ins', async function () {
+    const { page } = tab;
+    await page.goto('/sign-in');
+    // The test app allows 5 failures per address and e-mail a minute (startTestApp default); the 6th is refused.
+    // The admin is used only here, so the other tests' sign-ins are not throttled.
+    const statuses: number[] = [];
+    for (let attempt = 1; attempt <= 6; attempt++) {
+      const answer = page.waitForResponse((r) => r.request().method() === 'POST' && new URL(r.url()).pathname === '/api/session');
+      await signInThroughPage(page, lab.admin.email, `${lab.password}-guess-${attempt}`);
+      statuses.push((await answer).status());
+    }
+    expect(statuses).to.deep.equal([401, 401, 401, 401, 401, 429]);
+
+    const alert = page.getByRole('alert');
+    await alert.filter({ hasText: 'Too many failed sign-in attempts' }).waitFor();
+    expect(await alert.innerText()).to.match(/Wait \d+ minutes?, then try again/);
+    await saveScreenshot(page, 'sign-in-too-many-attempts');
+    expectCleanPage(tab, [/status of 401 .*\/api\/session/, /status of 429 .*\/api\/session/]);
+  });
+
   it("signs the analyst in and lists their team's project", async function () {
     const { page } = tab;
     await page.goto('/');

@@ -15,7 +15,8 @@ export interface GuardedPage {
 export const laptopViewport = { width: 1280, height: 800 };
 
 export async function openGuardedPage(browser: Browser, baseUrl: string): Promise<GuardedPage> {
-  const context = await browser.newContext({ baseURL: baseUrl, viewport: laptopViewport, locale: 'en-GB' });
+  // Reduced motion makes Material skip ripples and transitions: steadier steps and screenshots.
+  const context = await browser.newContext({ baseURL: baseUrl, viewport: laptopViewport, locale: 'en-GB', reducedMotion: 'reduce' });
   const requests = recordRequests(context);
   const page = await context.newPage();
   const console = recordConsoleErrors(page);

@@ -20,7 +20,14 @@ export class ProjectsPage {
   private readonly projectsApi = inject(ProjectsApi);
   private readonly session = inject(Session);
 
-  protected readonly teamName = computed(() => this.session.user()?.team.name ?? '');
+  /** Admins see every team's projects (the server's team scope); everyone else sees their own team's. */
+  protected readonly scope = computed(() => {
+    const user = this.session.user();
+    if (!user) return '';
+    return user.role === 'admin'
+      ? 'As an admin you see the projects of every team.'
+      : `Shown here: everything your team, ${user.team.name}, can open.`;
+  });
   protected readonly loading = signal(true);
   protected readonly failure = signal<string | null>(null);
   private readonly projects = signal<ProjectSummary[]>([]);

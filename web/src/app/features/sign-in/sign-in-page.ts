@@ -130,7 +130,7 @@ function signInFailureMessage(failure: ApiFailure): string {
     case 'too_many_requests': {
       const minutes = failure.retryAfterSeconds ? Math.ceil(failure.retryAfterSeconds / 60) : null;
       const wait = minutes ? `${minutes} minute${minutes === 1 ? '' : 's'}` : 'a few minutes';
-      return `Too many sign-in attempts from this address. Wait ${wait}, then try again.`;
+      return `Too many failed sign-in attempts. Wait ${wait}, then try again.`;
     }
     default:
       return failure.message;
