@@ -12,6 +12,8 @@ export function buildGramProblem(
 ): { problem: GramProblem; scales: Float64Array } {
   const m = columns.length;
   const scales = Float64Array.from(columns, (column) => Math.sqrt(dot(column, column)));
+  const zero = scales.findIndex((scale) => !(scale > 0 && Number.isFinite(scale)));
+  if (zero >= 0) throw new RangeError(`column ${zero} is zero or not finite; screen such columns out before the sweep`);
   const gram = new Float64Array(m * m);
   const scaledRhs = new Float64Array(m);
   for (let i = 0; i < m; i++) {

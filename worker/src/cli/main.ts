@@ -3,12 +3,8 @@
  * Standard output carries the result only (one JSON object with --json); progress and errors go to
  * standard error. Exit 0 on success, 2 for an invalid description or recording, 1 for anything else.
  */
-import { discover } from '../../../shared/math/discover.js';
 import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
 import { helpText } from './help-text.js';
-import { progressReporter } from './progress-reporter.js';
-import { readDescription, readRecordings } from './read-recordings.js';
-import { summaryText } from './summary-table.js';
 
 const EXIT_INVALID_INPUT = 2;
 const EXIT_FAULT = 1;
@@ -34,6 +30,11 @@ async function main(args: string[]): Promise<number> {
     );
     return EXIT_INVALID_INPUT;
   }
+  // Loaded here so that --help and usage errors answer without loading the math engine.
+  const { discover } = await import('../../../shared/math/discover.js');
+  const { readDescription, readRecordings } = await import('./read-recordings.js');
+  const { progressReporter } = await import('./progress-reporter.js');
+  const { summaryText } = await import('./summary-table.js');
   const descriptionFile = files[0]!;
   const description = await readDescription(descriptionFile);
   const recordings = await readRecordings(description, descriptionFile);
