@@ -43,6 +43,18 @@ export interface RequestOptions {
   withoutCsrf?: boolean;
 }
 
+const statusesWithoutBody = new Set([101, 103, 204, 205, 304]);
+
+/**
+ * The response after its body has fully arrived. The server stores session changes before it ends the
+ * response, so only then may the next request rely on them (fetch itself resolves at the headers).
+ */
+async function completed(response: Response): Promise<Response> {
+  const body = await response.arrayBuffer();
+  const init = { status: response.status, statusText: response.statusText, headers: response.headers };
+  return new Response(statusesWithoutBody.has(response.status) ? null : body, init);
+}
+
 /**
  * A small HTTP client that keeps cookies like a browser and, like Angular, echoes the XSRF-TOKEN cookie in
  * the X-XSRF-TOKEN header of state-changing requests.
@@ -80,7 +92,7 @@ export class TestAgent {
     }
     const response = await fetch(new URL(path, this.baseUrl), { method, headers, body, redirect: 'manual' });
     this.keepCookies(response);
-    return response;
+    return completed(response);
   }
 
   get(path: string, options?: RequestOptions) {

@@ -35,14 +35,12 @@ function portIsFree(port: number): Promise<boolean> {
   });
 }
 
-/** A free loopback port from 55433 upwards, so test runs never clash with npm start (55432) or each other. */
-async function freePort(): Promise<number> {
-  const fixed = process.env.CONSERVA_TEST_DB_PORT;
-  if (fixed) return Number(fixed);
-  for (let port = firstTestPort; port < firstTestPort + 200; port++) {
+/** A free loopback port from `from` upwards, so test runs never clash with npm start (55432) or each other. */
+async function freePort(from: number): Promise<number> {
+  for (let port = from; port < firstTestPort + 500; port++) {
     if (await portIsFree(port)) return port;
   }
-  throw new Error(`No free port between ${firstTestPort} and ${firstTestPort + 199} for the test database.`);
+  throw new Error(`No free port between ${from} and ${firstTestPort + 499} for the test database.`);
 }
 
 function processAlive(pid: number): boolean {
@@ -70,6 +68,21 @@ function removeAbandonedClusters(bin: string): void {
   }
 }
 
+/** Another run may take the port between the probe and the server's bind; then the next port is tried. */
+async function startOnFreePort(dir: string, bin: string) {
+  const fixed = process.env.CONSERVA_TEST_DB_PORT;
+  let port = fixed ? Number(fixed) : await freePort(firstTestPort);
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await startCluster({ dir, bin, port, database: 'conserva_test', role: 'conserva', throwaway: true });
+    } catch (error) {
+      const portTaken = /could not bind|Address already in use/.test(String((error as Error).message));
+      if (fixed || !portTaken || attempt >= 5) throw error;
+      port = await freePort(port + 1);
+    }
+  }
+}
+
 /**
  * Starts a throwaway cluster in a fresh folder under the system temp folder (fsync off), on loopback, and
  * returns its URL. stop() removes it again; it is also removed when this process exits.
@@ -91,7 +104,7 @@ export async function startTestDatabase(): Promise<TestDatabase> {
   };
   process.once('exit', stop);
   try {
-    const cluster = await startCluster({ dir, bin, port: await freePort(), database: 'conserva_test', role: 'conserva', throwaway: true });
+    const cluster = await startOnFreePort(dir, bin);
     return { url: cluster.url, stop };
   } catch (error) {
     stop();
