@@ -152,6 +152,29 @@ describe('signing in through the web app', function () {
     expectCleanPage(tab);
   });
 
+  it('can be used with the keyboard alone', async function () {
+    const { page } = tab;
+    await page.goto('/sign-in');
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    // The e-mail field has the focus on arrival; Enter in the password field sends the form.
+    expect(await page.evaluate('document.activeElement?.getAttribute("autocomplete")')).to.equal('username');
+    await page.keyboard.type(lab.analyst.email);
+    await page.keyboard.press('Tab');
+    await page.keyboard.type(lab.password);
+    await page.keyboard.press('Enter');
+    await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
+
+    const reached: string[] = [];
+    for (let step = 0; step < 8 && reached.at(-1) !== 'Sign out'; step++) {
+      await page.keyboard.press('Tab');
+      reached.push((await page.locator(':focus').innerText()).replace(/\s+/g, ' ').replace(/^logout /, '').trim());
+    }
+    expect(reached, 'controls in tab order').to.include.members(['Skip to content', 'Sign out']);
+    await page.keyboard.press('Enter');
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    expectCleanPage(tab);
+  });
+
   it('signs out and ends the session on the server', async function () {
     const { page } = tab;
     await page.goto('/');
