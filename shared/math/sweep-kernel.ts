@@ -15,9 +15,11 @@ import type { GramProblem, RankedSubset, SweepOptions, SweepOutcome, SweepSlice 
  *      D_{j+1}(t) = D_j(t) - l_j(t)^2        (what is left of t's pivot),
  *      E_{j+1}(t) = E_j(t) - l_j(t) z_j      (what is left of t's forward-substitution value),
  *    stored per level in preallocated typed arrays and reused by every subset under that prefix.
- * 3. The next-to-last member is fused with the last: for each candidate t after it, the kernel forms
- *    l(t) from the stored rows, the pivot d = D(t) - l^2 and e = E(t) - l z, and RSS = rss(prefix) - e^2/d.
- *    That is about (size + 1) multiply-adds and one division per subset, independent of the number of rows.
+ * 3. The last two members (a, t) are enumerated together without storing anything: for each a, the row
+ *    l(t) = S[a, t] / L_aa of the prefix's Schur complement is formed from the stored rows in one pass over t,
+ *    then the pivot d = D(t) - l^2, e = E(t) - l z and RSS = rss(prefix + a) - e^2/d. That is about
+ *    (size + 2) multiply-adds per subset, independent of the number of rows; the division is only paid
+ *    by subsets that can enter the leaderboard (e^2 >= (rss(prefix + a) - threshold) d).
  *
  * Every value depends only on the prefix, never on where a slice started, so results are bit-identical
  * however the rank space is split.
