@@ -19,13 +19,6 @@ if (pending.length) {
 
 const conserva = createApp(orm, config, logger);
 const server = createServer(conserva.app);
-server.listen(config.port, config.host, () => {
-  logger.info({ url: `http://${config.host}:${config.port}/` }, `listening on http://${config.host}:${config.port}/`);
-});
-server.on('error', (err) => {
-  logger.fatal({ err }, 'the server could not listen');
-  process.exit(1);
-});
 
 let stopping = false;
 async function stop(signal: string): Promise<void> {
@@ -39,5 +32,14 @@ async function stop(signal: string): Promise<void> {
   await orm.close();
   process.exit(0);
 }
+// Handlers go in before the server announces itself: whoever reads that line may signal at once.
 process.on('SIGINT', () => void stop('SIGINT'));
 process.on('SIGTERM', () => void stop('SIGTERM'));
+
+server.on('error', (err) => {
+  logger.fatal({ err }, 'the server could not listen');
+  process.exit(1);
+});
+server.listen(config.port, config.host, () => {
+  logger.info({ url: `http://${config.host}:${config.port}/` }, `listening on http://${config.host}:${config.port}/`);
+});

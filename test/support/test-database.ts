@@ -36,7 +36,7 @@ function portIsFree(port: number): Promise<boolean> {
 }
 
 /** A free loopback port from `from` upwards, so test runs never clash with npm start (55432) or each other. */
-async function freePort(from: number): Promise<number> {
+export async function freePort(from: number): Promise<number> {
   for (let port = from; port < firstTestPort + 500; port++) {
     if (await portIsFree(port)) return port;
   }

@@ -11,17 +11,22 @@ const logger = createLogger(config.logLevel, 'worker');
 
 const boss = new PgBoss({ connectionString: config.databaseUrl, max: 4 });
 boss.on('error', (err) => logger.error({ err }, 'pg-boss error'));
-await boss.start();
-logger.info('connected to the job queue; waiting for work');
 
 let stopping = false;
+let started: Promise<unknown> = Promise.resolve();
 async function stop(signal: string): Promise<void> {
   if (stopping) return;
   stopping = true;
   logger.info({ signal }, 'stopping');
+  await started.catch(() => undefined);
   await boss.stop({ graceful: true, wait: true, timeout: 10_000 });
   logger.info('stopped');
   process.exit(0);
 }
+// Handlers go in before anything is announced: whoever reads the "waiting" line may signal at once.
 process.on('SIGINT', () => void stop('SIGINT'));
 process.on('SIGTERM', () => void stop('SIGTERM'));
+
+started = boss.start();
+await started;
+if (!stopping) logger.info('connected to the job queue; waiting for work');
