@@ -20,6 +20,14 @@ const DEFAULT_SAMPLE = 20_000;
 const KERNEL_REPEATS = 5;
 const TOP = 20;
 
+interface TimedRuns {
+  medianSeconds: number;
+  bestSeconds: number;
+  /** CPU time of all threads of this process over wall time: below the thread count when others ran too. */
+  coresUsed: number;
+  outcome: SweepOutcome;
+}
+
 interface ThreadFigure {
   threads: number;
   /** From the median run. */
@@ -27,6 +35,7 @@ interface ThreadFigure {
   /** From the fastest run (the machine is shared, so the spread says how much others were running). */
   bestPerSecond: number;
   seconds: number;
+  coresUsed: number;
   sameAsOneThread: boolean;
 }
 
@@ -40,15 +49,18 @@ function median(values: number[]): number {
 }
 
 /** One warm-up run (so that the optimizing compiler has seen the kernel on every thread), then timed runs. */
-async function timeRuns(run: () => SweepOutcome | Promise<SweepOutcome>): Promise<{ medianSeconds: number; bestSeconds: number; outcome: SweepOutcome }> {
+async function timeRuns(run: () => SweepOutcome | Promise<SweepOutcome>): Promise<TimedRuns> {
   let outcome = await run();
   const seconds: number[] = [];
+  const cpuBefore = process.cpuUsage();
   for (let repeat = 0; repeat < KERNEL_REPEATS; repeat++) {
     const start = performance.now();
     outcome = await run();
     seconds.push((performance.now() - start) / 1000);
   }
-  return { medianSeconds: median(seconds), bestSeconds: Math.min(...seconds), outcome };
+  const cpu = process.cpuUsage(cpuBefore);
+  const coresUsed = (cpu.user + cpu.system) / 1e6 / seconds.reduce((sum, value) => sum + value, 0);
+  return { medianSeconds: median(seconds), bestSeconds: Math.min(...seconds), coresUsed, outcome };
 }
 
 function sampleSizeFromArguments(): number {
@@ -66,6 +78,8 @@ function sameLeaderboards(a: SweepOutcome, b: SweepOutcome): boolean {
 async function main(): Promise<void> {
   const json = process.argv.includes('--json');
   const sample = sampleSizeFromArguments();
+  // Other programs on the machine slow the figures down, the threaded ones most: say how busy it was.
+  const loadAtStart = os.loadavg()[0];
   log(`building the problem: ${ROWS} rows, ${CANDIDATES} candidates`);
   const bench = buildBenchProblem({ rowCount: ROWS, columnCount: CANDIDATES, seed: 20261201, trueMembers: [3, 17, 28, 41, 55], noise: 0.5 });
   const total = binomial(CANDIDATES, SIZE);
@@ -110,6 +124,7 @@ async function main(): Promise<void> {
         perSecond: total / run.medianSeconds,
         bestPerSecond: total / run.bestSeconds,
         seconds: run.medianSeconds,
+        coresUsed: run.coresUsed,
         sameAsOneThread: sameLeaderboards(run.outcome, kernelOutcome),
       });
     } finally {
@@ -125,6 +140,7 @@ async function main(): Promise<void> {
     kernelSeconds: kernel.medianSeconds,
     kernelPerSecond,
     kernelBestPerSecond: total / kernel.bestSeconds,
+    kernelCoresUsed: kernel.coresUsed,
     straightforwardSample: sample,
     straightforwardSeconds: straightSeconds,
     straightforwardPerSecond,
@@ -135,6 +151,7 @@ async function main(): Promise<void> {
     rejected: kernelOutcome.rejected,
     threads,
     availableParallelism: os.availableParallelism(),
+    loadAverage: { atStart: loadAtStart, atEnd: os.loadavg()[0] },
   };
   if (json) {
     process.stdout.write(`${JSON.stringify(figures)}\n`);
@@ -148,6 +165,7 @@ type Figures = {
   kernelSeconds: number;
   kernelPerSecond: number;
   kernelBestPerSecond: number;
+  kernelCoresUsed: number;
   straightforwardSample: number;
   straightforwardSeconds: number;
   straightforwardPerSecond: number;
@@ -156,15 +174,24 @@ type Figures = {
   bestMembers: number[];
   trueMembers: number[];
   threads: ThreadFigure[];
+  availableParallelism: number;
+  loadAverage: { atStart: number; atEnd: number };
 };
 
 function printTable(f: Figures): void {
   const rate = (value: number) => (value >= 1e5 ? `${(value / 1e6).toFixed(2)} M/s` : `${value.toFixed(0)} /s`);
   const rows = [
-    ['what', 'subsets', 'seconds', 'per second', 'fastest run'],
-    [`kernel, 1 thread (median of ${KERNEL_REPEATS})`, String(f.subsets), f.kernelSeconds.toFixed(3), rate(f.kernelPerSecond), rate(f.kernelBestPerSecond)],
-    ['straightforward, ml-matrix QR (sample)', String(f.straightforwardSample), f.straightforwardSeconds.toFixed(3), rate(f.straightforwardPerSecond), ''],
-    ...f.threads.map((t) => [`kernel via pool, ${t.threads} thread(s)`, String(f.subsets), t.seconds.toFixed(3), rate(t.perSecond), rate(t.bestPerSecond)]),
+    ['what', 'subsets', 'seconds', 'per second', 'fastest run', 'cores used'],
+    [`kernel, 1 thread (median of ${KERNEL_REPEATS})`, String(f.subsets), f.kernelSeconds.toFixed(3), rate(f.kernelPerSecond), rate(f.kernelBestPerSecond), f.kernelCoresUsed.toFixed(2)],
+    ['straightforward, ml-matrix QR (sample)', String(f.straightforwardSample), f.straightforwardSeconds.toFixed(3), rate(f.straightforwardPerSecond), '', ''],
+    ...f.threads.map((t) => [
+      `kernel via pool, ${t.threads} thread(s) (median of ${KERNEL_REPEATS})`,
+      String(f.subsets),
+      t.seconds.toFixed(3),
+      rate(t.perSecond),
+      rate(t.bestPerSecond),
+      t.coresUsed.toFixed(2),
+    ]),
   ];
   const widths = rows[0].map((_, column) => Math.max(...rows.map((row) => row[column].length)));
   const line = (row: string[]) => `| ${row.map((cell, column) => (column === 0 ? cell.padEnd(widths[column]) : cell.padStart(widths[column]))).join(' | ')} |`;
@@ -180,6 +207,7 @@ function printTable(f: Figures): void {
     `pool outcomes equal to the one-thread kernel: ${f.threads.every((t) => t.sameAsOneThread) ? 'yes' : 'NO'}`,
     `sanity: largest relative RSS difference, kernel vs straightforward, over ${f.straightforwardSample} subsets: ${f.maxRelativeRssDifference.toExponential(2)}`,
     `best subset found: [${f.bestMembers.join(', ')}]; y was built from [${f.trueMembers.join(', ')}]`,
+    `machine: ${f.availableParallelism} cores; 1-minute load average ${f.loadAverage.atStart.toFixed(2)} at start, ${f.loadAverage.atEnd.toFixed(2)} at end`,
   ];
   process.stdout.write(`${lines.join('\n')}\n`);
 }
