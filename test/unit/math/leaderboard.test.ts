@@ -1,7 +1,7 @@
 import { expect } from 'chai';
 import { compareRankedSubsets, Leaderboard, mergeSweepOutcomes } from '../../../shared/math/leaderboard.js';
 import type { RankedSubset, SweepOutcome } from '../../../shared/math/sweep-problem.js';
-import { createSeededRandom } from '../../../worker/src/bench/seeded-random.js';
+import { createSeededRandom } from '../../../shared/math/seeded-random.js';
 
 function randomEntries(count: number, seed: number, distinctRss: number): RankedSubset[] {
   const uniform = createSeededRandom(seed);

@@ -5,7 +5,7 @@ import { buildGramProblem } from '../../../shared/math/gram-problem.js';
 import { mergeSweepOutcomes } from '../../../shared/math/leaderboard.js';
 import { evaluateSlices } from '../../../shared/math/sweep-kernel.js';
 import type { GramProblem, RankedSubset, SweepOutcome, SweepProgress } from '../../../shared/math/sweep-problem.js';
-import { createNormalRandom, createSeededRandom } from '../../../worker/src/bench/seeded-random.js';
+import { createNormalRandom, createSeededRandom } from '../../../shared/math/seeded-random.js';
 
 /*
  * The reference is a plain least-squares solve of every subset on the unscaled rows with ml-matrix's

@@ -3,7 +3,7 @@ import { countSliceSubsets, countSubsets, splitRankSpace } from '../../../shared
 import { buildGramProblem } from '../../../shared/math/gram-problem.js';
 import { evaluateSlices } from '../../../shared/math/sweep-kernel.js';
 import type { GramProblem, SweepProgress } from '../../../shared/math/sweep-problem.js';
-import { createNormalRandom, createSeededRandom } from '../../../worker/src/bench/seeded-random.js';
+import { createNormalRandom, createSeededRandom } from '../../../shared/math/seeded-random.js';
 import { createStopFlag, requestStop, SweepPool } from '../../../worker/src/pool/sweep-pool.js';
 
 function randomProblem(seed: number, rows: number, columnCount: number, knownCount: number): GramProblem {

@@ -1,6 +1,6 @@
 import { buildGramProblem } from '../../../shared/math/gram-problem.js';
 import type { GramProblem } from '../../../shared/math/sweep-problem.js';
-import { createNormalRandom, createSeededRandom } from './seeded-random.js';
+import { createNormalRandom, createSeededRandom } from '../../../shared/math/seeded-random.js';
 
 /** A random regression with its rows kept, so that the same problem can be solved the straightforward way. */
 export interface BenchProblem {

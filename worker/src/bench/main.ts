@@ -4,7 +4,7 @@ import { evaluateSlices } from '../../../shared/math/sweep-kernel.js';
 import type { SweepOutcome, SweepSlice } from '../../../shared/math/sweep-problem.js';
 import { SweepPool } from '../pool/sweep-pool.js';
 import { buildBenchProblem } from './bench-problem.js';
-import { createSeededRandom } from './seeded-random.js';
+import { createSeededRandom } from '../../../shared/math/seeded-random.js';
 import { straightforwardRss } from './straightforward-rss.js';
 
 /*
