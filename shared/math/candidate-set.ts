@@ -3,6 +3,7 @@ import { prepareTerm, type CandidateTerm } from './candidate-term.js';
 import { DiscoveryInputError } from './discovery-input-error.js';
 import { parseExpression, TermError } from './term-expression.js';
 import { formatTerm } from './term-format.js';
+import { termFingerprint } from './term-fingerprint.js';
 import { generateTerms } from './term-generator.js';
 import type { TermSymbols } from './term-symbols.js';
 
@@ -22,28 +23,54 @@ export interface CandidateSet {
 
 /**
  * Builds the candidate set from the settings: the typed terms, or the generated ones with the user's
- * additions and removals; every term parsed, checked and compiled. Terms are compared by canonical spelling:
- * a repeated candidate is left out (and listed as excluded), a candidate that is also known or the reference
- * is taken out of the candidates. A term that is a constant (every partial derivative zero) is refused: no
- * data can identify it.
+ * additions and removals; every term parsed, checked and compiled. Terms are compared as functions
+ * (term-fingerprint.ts): a candidate that is a known or the reference term is quietly taken out of the
+ * candidates, one that merely equals a multiple of an earlier term is left out and listed as excluded. A
+ * term that is a constant (every partial derivative zero) is refused: no data can identify it.
  */
 export function assembleCandidateSet(settings: SweepSettings, symbols: TermSymbols): CandidateSet {
   const excluded: ExcludedTerm[] = [];
   const warnings: string[] = [];
   const prepare = (text: string) => refuseConstant(prepareTerm(text, symbols));
+  const seen = new Map<string, { term: CandidateTerm; role: string }>();
+  const twinOf = (term: CandidateTerm) => {
+    const key = termFingerprint(term, symbols);
+    return key === null ? undefined : seen.get(key);
+  };
+  const remember = (term: CandidateTerm, role: string) => {
+    const key = termFingerprint(term, symbols);
+    if (key !== null) seen.set(key, { term, role });
+  };
 
-  const known = uniqueByText(settings.known.map(prepare), (term, first) => {
-    throw new DiscoveryInputError(`Known term "${term.typed}" is listed twice (as "${first.typed}").`);
-  });
+  const known: CandidateTerm[] = [];
+  for (const term of settings.known.map(prepare)) {
+    const twin = twinOf(term);
+    if (twin) throw new DiscoveryInputError(`Known terms "${twin.term.typed}" and "${term.typed}" are multiples of each other; keep one.`);
+    remember(term, 'known term');
+    known.push(term);
+  }
   const reference = settings.reference ? prepare(settings.reference.term) : null;
-  if (reference && known.some((k) => k.text === reference.text)) {
-    throw new DiscoveryInputError(`Term "${reference.typed}" cannot be both a known term and the reference term.`);
+  if (reference) {
+    const twin = twinOf(reference);
+    if (twin) {
+      throw new DiscoveryInputError(`The reference term "${reference.typed}" is a multiple of the known term "${twin.term.typed}"; it cannot be both.`);
+    }
+    remember(reference, 'reference term');
   }
 
-  const fixed = new Set([...known.map((k) => k.text), ...(reference ? [reference.text] : [])]);
-  const candidates = uniqueByText(candidateTexts(settings, symbols).map(prepare), (term, first) => {
-    excluded.push({ term: term.text, reason: `the same term as "${first.typed}", already a candidate` });
-  }).filter((term) => !fixed.has(term.text));
+  const candidates: CandidateTerm[] = [];
+  for (const term of candidateTexts(settings, symbols).map(prepare)) {
+    const twin = twinOf(term);
+    if (twin) {
+      if (twin.role === 'candidate' || twin.term.text !== term.text) {
+        const relation = twin.term.text === term.text ? 'the same term as' : 'equal to, or a constant multiple of,';
+        excluded.push({ term: term.text, reason: `${relation} the ${twin.role} "${twin.term.text}"` });
+      }
+      continue;
+    }
+    remember(term, 'candidate');
+    candidates.push(term);
+  }
 
   const linear = [...known, ...candidates, ...(reference ? [reference] : [])].filter((t) => t.velocityDegree === 1);
   if (linear.length > 0) {
@@ -85,19 +112,4 @@ function refuseConstant(term: CandidateTerm): CandidateTerm {
     );
   }
   return term;
-}
-
-function uniqueByText(terms: CandidateTerm[], onRepeat: (term: CandidateTerm, first: CandidateTerm) => void): CandidateTerm[] {
-  const firstByText = new Map<string, CandidateTerm>();
-  const unique: CandidateTerm[] = [];
-  for (const term of terms) {
-    const first = firstByText.get(term.text);
-    if (first) {
-      onRepeat(term, first);
-      continue;
-    }
-    firstByText.set(term.text, term);
-    unique.push(term);
-  }
-  return unique;
 }

@@ -9,7 +9,9 @@ import { workOutModel, type ModelContext, type WorkedModel } from './leaderboard
 import { indistinguishableWarning, rankModels, type RankingCriterion } from './model-choice.js';
 import type { Recording } from './recording.js';
 import { describeEstimator, recordingSignals } from './recording-signals.js';
+import { NOISE_FLOOR_FACTOR, noiseFloorRmse } from './noise-floor.js';
 import { refitColumns } from './refit.js';
+import { createNormalRandom, createSeededRandom } from './seeded-random.js';
 import { buildSystemFor, buildTrainingSystem } from './regression-system.js';
 import { evaluateSlices } from './sweep-kernel.js';
 import type { RankedSubset, SweepOutcome } from './sweep-problem.js';
@@ -32,6 +34,8 @@ export interface DiscoveryOptions {
 /** Known columns whose scaled condition number exceeds this are refused as linearly dependent. */
 const KNOWN_CONDITION_LIMIT = 1e8;
 const SUBSETS_PER_SLICE = 1_000_000;
+/** Fixed seed of the noise draws, so a discovery gives the same result every time it runs. */
+const NOISE_SEED = 20261202;
 
 /**
  * The whole discovery on recordings already read: candidate set, signals per recording, the chosen
@@ -86,12 +90,28 @@ export function discover(settings: SweepSettings, recordings: readonly Recording
     trainingSignals,
   };
   const criterion: RankingCriterion = validation ? 'validation' : 'bic';
-  const worked = leaderboardSubsets(outcome).map((subset) => workOutModel(subset, context));
-  const ranked = rankModels(worked, criterion, null).slice(0, settings.top);
   const termsOf = (model: WorkedModel) => [
     ...model.columns.map((j) => training.terms[j]!),
     ...(context.reference ? [context.reference.term] : []),
   ];
+  const normal = createNormalRandom(createSeededRandom(NOISE_SEED));
+  const floorOf = (model: WorkedModel) =>
+    noiseFloorRmse({ terms: termsOf(model), coefficients: model.coefficients }, train, settings, symbols, needAccelerations, normal);
+  const front = sizeFront(outcome, context, sizes, floorOf);
+  // Validation error measures directly what the stop guards against, so the stop serves ranking by BIC only.
+  const stop =
+    criterion === 'bic'
+      ? front.find((entry) => entry.noiseFloorRmse !== null && entry.trainRmse <= NOISE_FLOOR_FACTOR * entry.noiseFloorRmse)
+      : undefined;
+  if (stop && stop.size < sizes.max) {
+    warnings.push(
+      `Models stop growing at size ${stop.size}: its best model's residual (${stop.trainRmse.toPrecision(3)}) is within ` +
+        `${NOISE_FLOOR_FACTOR} times the residual the noise in the recordings alone gives it ` +
+        `(${stop.noiseFloorRmse!.toPrecision(3)}), so larger models are ranked after it.`,
+    );
+  }
+  const worked = leaderboardSubsets(outcome).map((subset) => workOutModel(subset, context));
+  const ranked = rankModels(worked, criterion, stop?.size ?? null).slice(0, settings.top);
   const ambiguity = indistinguishableWarning(ranked, criterion, termsOf, trainingSignals);
   if (ambiguity) warnings.push(ambiguity);
   const best = ranked[0];
@@ -110,7 +130,7 @@ export function discover(settings: SweepSettings, recordings: readonly Recording
     reference: set.reference ? { term: set.reference.text, coefficient: settings.reference!.coefficient } : null,
     rankedBy: criterion,
     models: ranked.map(({ columns: _columns, ...model }) => model),
-    front: sizeFront(outcome, context, sizes),
+    front,
     best: best
       ? {
           terms: best.terms,
@@ -179,8 +199,13 @@ function leaderboardSubsets(outcome: SweepOutcome): RankedSubset[] {
   return subsets;
 }
 
-/** The best model of each size by training residual: the front of error against size. */
-function sizeFront(outcome: SweepOutcome, context: ModelContext, sizes: { min: number; max: number }): SizeFrontEntry[] {
+/** The best model of each size by training residual, with its noise floor: the front of error against size. */
+function sizeFront(
+  outcome: SweepOutcome,
+  context: ModelContext,
+  sizes: { min: number; max: number },
+  floorOf: (model: WorkedModel) => number,
+): SizeFrontEntry[] {
   const front: SizeFrontEntry[] = [];
   for (let size = sizes.min; size <= sizes.max; size++) {
     const first = outcome.bestBySize[size]?.[0];
@@ -192,7 +217,7 @@ function sizeFront(outcome: SweepOutcome, context: ModelContext, sizes: { min: n
       trainRmse: model.trainRmse,
       validationRmse: model.validationRmse,
       bic: model.bic,
-      noiseFloorRmse: null,
+      noiseFloorRmse: floorOf(model),
     });
   }
   return front;

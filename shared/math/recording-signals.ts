@@ -50,7 +50,7 @@ export function recordingSignals(
   let start = 0;
   let end = count;
   const estimate = (signal: Float64Array) => {
-    const result = estimateDerivatives(recording.time, signal, settings);
+    const result = estimateOrExplain(recording, signal, settings);
     start = Math.max(start, result.start);
     end = Math.min(end, result.end);
     return result;
@@ -85,6 +85,16 @@ export function recordingSignals(
     power: inputPower(recording, symbols, trimmed, start, end),
     length,
   };
+}
+
+/** The estimator's refusals (uneven sampling, too short) do not know the recording: name it. */
+function estimateOrExplain(recording: Recording, signal: Float64Array, settings: DerivativeSettings) {
+  try {
+    return estimateDerivatives(recording.time, signal, settings);
+  } catch (error) {
+    if (error instanceof DiscoveryInputError) throw new DiscoveryInputError(`${recording.name}: ${error.message}`);
+    throw error;
+  }
 }
 
 function inputPower(

@@ -122,7 +122,12 @@ export const columnMappingSchema = z
     forces: z.record(z.string(), z.string().min(1)).optional(),
   })
   .catchall(z.string().min(1));
-export type ColumnMapping = z.infer<typeof columnMappingSchema>;
+/** The mapping as code builds it (zod's inferred type cannot express `forces` beside the string columns). */
+export interface ColumnMapping {
+  time: string;
+  forces?: Record<string, string>;
+  [key: string]: string | Record<string, string> | undefined;
+}
 
 export const recordingRoleSchema = z.enum(['train', 'validate']);
 export type RecordingRole = z.infer<typeof recordingRoleSchema>;

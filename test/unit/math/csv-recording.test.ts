@@ -1,12 +1,13 @@
 import { expect } from 'chai';
 import { recordingFromCsv } from '../../../shared/math/csv-recording.js';
 import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
+import type { ColumnMapping } from '../../../shared/schemas/sweep-description.js';
 
-const mapping = { time: 't', x: 'pos', forces: { x: 'f' } };
+const mapping: ColumnMapping = { time: 't', x: 'pos', forces: { x: 'f' } };
 
 function refusal(text: string, map: Record<string, unknown> = mapping): string {
   try {
-    recordingFromCsv(text, 'run.csv', 'train', ['x'], map as typeof mapping);
+    recordingFromCsv(text, 'run.csv', 'train', ['x'], map as ColumnMapping);
   } catch (error) {
     expect(error).to.be.instanceOf(DiscoveryInputError);
     return (error as Error).message;
