@@ -181,9 +181,9 @@ type Figures = {
 function printTable(f: Figures): void {
   const rate = (value: number) => (value >= 1e5 ? `${(value / 1e6).toFixed(2)} M/s` : `${value.toFixed(0)} /s`);
   const rows = [
-    ['what', 'subsets', 'seconds', 'per second', 'fastest run', 'cores used'],
-    [`kernel, 1 thread (median of ${KERNEL_REPEATS})`, String(f.subsets), f.kernelSeconds.toFixed(3), rate(f.kernelPerSecond), rate(f.kernelBestPerSecond), f.kernelCoresUsed.toFixed(2)],
-    ['straightforward, ml-matrix QR (sample)', String(f.straightforwardSample), f.straightforwardSeconds.toFixed(3), rate(f.straightforwardPerSecond), '', ''],
+    ['what', 'subsets', 'seconds', 'per second', 'fastest run', 'cores used', 'per CPU-second'],
+    [`kernel, 1 thread (median of ${KERNEL_REPEATS})`, String(f.subsets), f.kernelSeconds.toFixed(3), rate(f.kernelPerSecond), rate(f.kernelBestPerSecond), f.kernelCoresUsed.toFixed(2), rate(f.kernelPerSecond / f.kernelCoresUsed)],
+    ['straightforward, ml-matrix QR (sample)', String(f.straightforwardSample), f.straightforwardSeconds.toFixed(3), rate(f.straightforwardPerSecond), '', '', ''],
     ...f.threads.map((t) => [
       `kernel via pool, ${t.threads} thread(s) (median of ${KERNEL_REPEATS})`,
       String(f.subsets),
@@ -191,6 +191,7 @@ function printTable(f: Figures): void {
       rate(t.perSecond),
       rate(t.bestPerSecond),
       t.coresUsed.toFixed(2),
+      rate(t.perSecond / t.coresUsed),
     ]),
   ];
   const widths = rows[0].map((_, column) => Math.max(...rows.map((row) => row[column].length)));
