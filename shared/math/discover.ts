@@ -6,7 +6,14 @@ import { splitRankSpace, countSubsets } from './combinations.js';
 import { DiscoveryInputError } from './discovery-input-error.js';
 import { buildGramProblem } from './gram-problem.js';
 import { workOutModel, type ModelContext, type WorkedModel } from './leaderboard-models.js';
-import { indistinguishableWarning, rankModels, type RankingCriterion } from './model-choice.js';
+import {
+  indistinguishableWarning,
+  rankingTolerance,
+  rankModels,
+  scoreOf,
+  type RankingCriterion,
+  type RankingRule,
+} from './model-choice.js';
 import type { Recording } from './recording.js';
 import { describeEstimator, recordingSignals } from './recording-signals.js';
 import { NOISE_FLOOR_FACTOR, noiseFloorRmse } from './noise-floor.js';
@@ -98,7 +105,7 @@ export function discover(settings: SweepSettings, recordings: readonly Recording
   const floorOf = (model: WorkedModel) =>
     noiseFloorRmse({ terms: termsOf(model), coefficients: model.coefficients }, train, settings, symbols, needAccelerations, normal);
   const front = sizeFront(outcome, context, sizes, floorOf);
-  // Validation error measures directly what the stop guards against, so the stop serves ranking by BIC only.
+  // Validation error measures directly what the stop guards against, so the stop serves ranking by BIC.
   const stop =
     criterion === 'bic'
       ? front.find((entry) => entry.noiseFloorRmse !== null && entry.trainRmse <= NOISE_FLOOR_FACTOR * entry.noiseFloorRmse)
@@ -111,8 +118,11 @@ export function discover(settings: SweepSettings, recordings: readonly Recording
     );
   }
   const worked = leaderboardSubsets(outcome).map((subset) => workOutModel(subset, context));
-  const ranked = rankModels(worked, criterion, stop?.size ?? null).slice(0, settings.top);
-  const ambiguity = indistinguishableWarning(ranked, criterion, termsOf, trainingSignals);
+  const rule = rankingRule(worked, criterion, stop?.size ?? null, (model) =>
+    noiseFloorRmse({ terms: termsOf(model), coefficients: model.coefficients }, validate, settings, symbols, needAccelerations, normal),
+  );
+  const ranked = rankModels(worked, rule).slice(0, settings.top);
+  const ambiguity = indistinguishableWarning(ranked, rule, termsOf, trainingSignals);
   if (ambiguity) warnings.push(ambiguity);
   const best = ranked[0];
 
@@ -129,6 +139,7 @@ export function discover(settings: SweepSettings, recordings: readonly Recording
     known: set.known.map((t) => t.text),
     reference: set.reference ? { term: set.reference.text, coefficient: settings.reference!.coefficient } : null,
     rankedBy: criterion,
+    rankingTolerance: rule.tolerance,
     models: ranked.map(({ columns: _columns, ...model }) => model),
     front,
     best: best
@@ -184,6 +195,21 @@ function checkKnownColumns(columns: Float64Array[], rhs: Float64Array, names: st
         `(condition number ${fit.conditionNumber.toPrecision(3)}); remove one of them.`,
     );
   }
+}
+
+/**
+ * The ranking rule: criterion, tolerance and stop. With validation recordings the tolerance also covers the
+ * validation residual that noise alone gives the best model on those recordings.
+ */
+function rankingRule(
+  models: WorkedModel[],
+  criterion: RankingCriterion,
+  stopSize: number | null,
+  validationFloorOf: (model: WorkedModel) => number,
+): RankingRule {
+  if (criterion === 'bic' || models.length === 0) return { criterion, tolerance: rankingTolerance(criterion, null, null), stopSize };
+  const best = models.reduce((a, b) => (scoreOf(b, criterion) < scoreOf(a, criterion) ? b : a));
+  return { criterion, tolerance: rankingTolerance(criterion, best.validationRmse, validationFloorOf(best)), stopSize };
 }
 
 /** The best subsets overall and of every size, each once. */

@@ -4,55 +4,88 @@ import type { WorkedModel } from './leaderboard-models.js';
 import type { RecordingSignals } from './recording-signals.js';
 
 /**
- * Two models whose validation errors differ by less than this fraction, or whose BIC differ by less than
- * INDISTINGUISHABLE_BIC, are called indistinguishable (common practice, no source: a BIC difference below 2
- * is customarily read as no real evidence either way).
+ * Scores closer to the best than these margins do not tell models apart (common practice, no source): a BIC
+ * difference below 2 is customarily read as no real evidence either way, and validation errors within 5 % of
+ * each other (or closer than the residual noise alone gives on the validation recordings) are treated alike.
  */
 export const INDISTINGUISHABLE_VALIDATION_RATIO = 0.05;
 export const INDISTINGUISHABLE_BIC = 2;
-/** Energies closer than this (relative rms on the training samples) are the same model for the warning. */
+/** Energies closer than this (relative rms on the training samples) count as the same model. */
 export const SAME_ENERGY_TOLERANCE = 1e-2;
 
 export type RankingCriterion = 'validation' | 'bic';
 
-/**
- * Orders worked models best first (method.md section 3): by validation error when validation recordings
- * exist, otherwise by BIC. Models of sizes above `stopSize` (where growth stopped at the noise floor) come
- * after all others. Ties go to the smaller model.
- */
-export function rankModels(models: WorkedModel[], criterion: RankingCriterion, stopSize: number | null): WorkedModel[] {
-  const beyondStop = (m: WorkedModel) => (stopSize !== null && m.size > stopSize ? 1 : 0);
-  const score = (m: WorkedModel) => (criterion === 'validation' ? m.validationRmse! : m.bic);
-  return [...models].sort((a, b) => beyondStop(a) - beyondStop(b) || score(a) - score(b) || a.size - b.size);
+export interface RankingRule {
+  criterion: RankingCriterion;
+  /** Scores within this distance of the best are indistinguishable from it. */
+  tolerance: number;
+  /** Sizes above this one (where growth stopped at the noise floor) come after all others; null for none. */
+  stopSize: number | null;
+}
+
+/** The tolerance of a criterion given the best validation error and its noise floor (null for BIC). */
+export function rankingTolerance(criterion: RankingCriterion, bestValidation: number | null, validationFloor: number | null): number {
+  if (criterion === 'bic') return INDISTINGUISHABLE_BIC;
+  return Math.max(INDISTINGUISHABLE_VALIDATION_RATIO * (bestValidation ?? 0), validationFloor ?? 0);
+}
+
+export function scoreOf(model: WorkedModel, criterion: RankingCriterion): number {
+  return criterion === 'validation' ? model.validationRmse! : model.bic;
 }
 
 /**
- * Warns when models just behind the best score about as well but describe a different energy on the
- * training samples: the data given do not decide between them (method.md section 3, the known trap).
+ * Orders worked models best first (method.md section 3): by validation error when validation recordings
+ * exist, otherwise by BIC, preferring the smaller model among those the data cannot tell from the best.
+ * 1. Models of sizes above `stopSize` go last.
+ * 2. Among the rest, the models within `tolerance` of the best score come first, smallest first (then by
+ *    score): a term that improves the score by less than the data can resolve is not worth having.
+ * 3. Then every other model by score.
+ */
+export function rankModels(models: readonly WorkedModel[], rule: RankingRule): WorkedModel[] {
+  const score = (m: WorkedModel) => scoreOf(m, rule.criterion);
+  const beyondStop = (m: WorkedModel) => (rule.stopSize !== null && m.size > rule.stopSize ? 1 : 0);
+  const eligible = models.filter((m) => !beyondStop(m));
+  const best = Math.min(...(eligible.length > 0 ? eligible : models).map(score));
+  const tied = (m: WorkedModel) => (!beyondStop(m) && score(m) <= best + rule.tolerance ? 0 : 1);
+  return [...models].sort(
+    (a, b) =>
+      beyondStop(a) - beyondStop(b) ||
+      tied(a) - tied(b) ||
+      (tied(a) === 0 ? a.size - b.size : 0) ||
+      score(a) - score(b) ||
+      a.size - b.size,
+  );
+}
+
+/**
+ * Warns when models other than the chosen one score within the tolerance of the best but describe a
+ * different energy on the training samples: the data given do not decide between them (method.md
+ * section 3, the known trap).
  */
 export function indistinguishableWarning(
   ranked: readonly WorkedModel[],
-  criterion: RankingCriterion,
+  rule: RankingRule,
   termsOf: (model: WorkedModel) => CandidateTerm[],
   signals: readonly RecordingSignals[],
 ): string | null {
-  const [best, ...rest] = ranked;
-  if (!best) return null;
-  const close = rest.filter((m) =>
-    criterion === 'validation'
-      ? m.validationRmse! <= best.validationRmse! * (1 + INDISTINGUISHABLE_VALIDATION_RATIO)
-      : m.bic - best.bic < INDISTINGUISHABLE_BIC,
+  const [chosen, ...rest] = ranked;
+  if (!chosen) return null;
+  const eligible = ranked.filter((m) => rule.stopSize === null || m.size <= rule.stopSize);
+  const best = Math.min(...eligible.map((m) => scoreOf(m, rule.criterion)));
+  const close = rest.filter(
+    (m) => (rule.stopSize === null || m.size <= rule.stopSize) && scoreOf(m, rule.criterion) <= best + rule.tolerance,
   );
-  const bestEnergy = energyOnSamples(termsOf(best), best.coefficients, signals);
+  const chosenEnergy = energyOnSamples(termsOf(chosen), chosen.coefficients, signals);
   const rivals = close.filter(
-    (m) => relativeDifference(bestEnergy, energyOnSamples(termsOf(m), m.coefficients, signals)) > SAME_ENERGY_TOLERANCE,
+    (m) => relativeDifference(chosenEnergy, energyOnSamples(termsOf(m), m.coefficients, signals)) > SAME_ENERGY_TOLERANCE,
   );
   if (rivals.length === 0) return null;
-  const measure = criterion === 'validation' ? 'validation error within 5%' : 'BIC within 2';
+  const measure = rule.criterion === 'validation' ? 'validation errors' : 'BIC values';
   return (
-    `The data given do not decide between the best model (${best.terms.join(', ')}) and ` +
-    `${rivals.map((m) => `(${m.terms.join(', ')})`).join(', ')}: ${measure}, yet different energies on the ` +
-    `training samples. Add recordings from other initial conditions, forced recordings or validation recordings.`
+    `The data given do not decide between the chosen model (${chosen.terms.join(', ')}) and ` +
+    `${rivals.map((m) => `(${m.terms.join(', ')})`).join(', ')}: their ${measure} are within ` +
+    `${rule.tolerance.toPrecision(3)} of the best, yet their energies differ on the training samples. Add ` +
+    'recordings from other initial conditions, forced recordings or validation recordings.'
   );
 }
 

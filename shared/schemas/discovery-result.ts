@@ -68,6 +68,11 @@ export const discoveryResultSchema = z.object({
   reference: referenceTermSchema.nullable(),
   /** How models of different sizes were ranked. */
   rankedBy: z.enum(['validation', 'bic']),
+  /**
+   * Scores within this distance of the best are indistinguishable from it; among those the smallest model
+   * ranks first (5 % of the best validation error or its noise floor, whichever is larger; 2 for BIC).
+   */
+  rankingTolerance: z.number(),
   models: z.array(discoveredModelSchema),
   front: z.array(sizeFrontEntrySchema),
   best: z

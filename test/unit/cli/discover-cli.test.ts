@@ -3,6 +3,10 @@ import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { discoveryResultSchema } from '../../../shared/schemas/discovery-result.js';
+import { pendulumTorque, forcesOf } from '../../support/mechanisms/forcing.js';
+import { simplePendulum } from '../../support/mechanisms/handbook-mechanisms.js';
+import { recordingToCsv, simulateRecording } from '../../support/mechanisms/simulate-recording.js';
 
 const root = path.resolve(import.meta.dirname, '../../..');
 
@@ -115,6 +119,67 @@ describe('conserva discover (command line)', function () {
     const file = path.join(dir, 'broken.json');
     writeFileSync(file, '{"coordinates": [');
     await expectRefusal(file, 'not valid JSON');
+  });
+
+  describe('on a forced pendulum simulated from its handbook equations (Landau & Lifshitz, Mechanics, sec. 5)', () => {
+    function writePendulum(): string {
+      const run = (q0: number, duration: number) =>
+        simulateRecording(simplePendulum, {
+          initial: { q: [q0], dq: [0] },
+          duration,
+          sampleStep: 0.01,
+          forces: forcesOf(pendulumTorque),
+        });
+      writeFileSync(path.join(dir, 'swing.csv'), recordingToCsv(run(0.4, 4), ['th']));
+      writeFileSync(path.join(dir, 'check.csv'), recordingToCsv(run(-0.9, 3), ['th']));
+      const file = path.join(dir, 'pendulum.json');
+      writeFileSync(
+        file,
+        JSON.stringify({
+          coordinates: ['th'],
+          recordings: [
+            { file: 'swing.csv', role: 'train' },
+            { file: 'check.csv', role: 'validate' },
+          ],
+          columns: { time: 'time', th: 'th', forces: { th: 'u_th' } },
+          generate: {},
+          sizes: { min: 1, max: 3 },
+          form: 'balance',
+          derivatives: { method: 'savitzky-golay', window: 9, order: 6 },
+          top: 4,
+        }),
+      );
+      return file;
+    }
+
+    it('prints one JSON object of the documented shape whose best energy is the handbook one', async () => {
+      const run = await conserva(['discover', writePendulum(), '--json']);
+      expect(run.status, run.stderr).to.equal(0);
+      expect(run.stderr).to.contain('sweep:');
+      const result = discoveryResultSchema.parse(JSON.parse(run.stdout));
+      // Generated set for one coordinate: 8 terms; subsets of sizes 1..3: 8 + 28 + 56.
+      expect(result.evaluated + result.rejected).to.equal(92);
+      expect(result.rankedBy).to.equal('validation');
+      expect(result.models).to.have.length(4);
+      expect(result.models[0]!.validationRmse).to.be.a('number');
+      const { m, l, g } = simplePendulum.parameters as { m: number; l: number; g: number };
+      const best = result.best!;
+      expect([...best.terms].sort()).to.deep.equal(['cos(th)', 'dth^2']);
+      // E = m l^2/2 dth^2 - m g l cos th; L flips the potential term (Landau & Lifshitz, Mechanics, sec. 5).
+      expect(best.coefficients[best.terms.indexOf('dth^2')]! / ((m * l * l) / 2) - 1).to.be.closeTo(0, 1e-3);
+      expect(best.coefficients[best.terms.indexOf('cos(th)')]! / (-m * g * l) - 1).to.be.closeTo(0, 1e-3);
+      expect(best.lagrangian).to.match(/^[0-9.e-]+\*dth\^2 \+ [0-9.e-]+\*cos\(th\)$|^[0-9.e-]+\*cos\(th\) \+ [0-9.e-]+\*dth\^2$/);
+      expect(best.energy).to.contain(String(best.coefficients[0]!).replace('-', ''));
+      expect(result.signals.description).to.equal('Savitzky-Golay estimator (window 9, order 6)');
+      expect(result.caution).to.contain('Validate it on the real machine');
+    });
+
+    it('prints a readable table without --json', async () => {
+      const run = await conserva(['discover', writePendulum()]);
+      expect(run.status, run.stderr).to.equal(0);
+      expect(run.stdout).to.contain('train rmse').and.to.contain('Best energy:').and.to.contain('Caution:');
+      expect(() => JSON.parse(run.stdout)).to.throw();
+    });
   });
 
   it('prints usage with --help and exits 0', async () => {
