@@ -111,6 +111,8 @@ function candidateSourceRule(settings: { terms?: unknown; generate?: unknown }, 
 /** The part of a sweep description that does not depend on files (reused by the API). */
 export const sweepSettingsSchema = z.object(sweepSettingsShape).strict().superRefine(candidateSourceRule);
 export type SweepSettings = z.infer<typeof sweepSettingsSchema>;
+/** Settings as written, before defaults are filled in. */
+export type SweepSettingsInput = z.input<typeof sweepSettingsSchema>;
 
 /**
  * Which CSV column holds what: `time`, one column per coordinate keyed by its name, optional velocity columns

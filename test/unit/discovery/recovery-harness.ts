@@ -4,7 +4,7 @@ import { discover } from '../../../shared/math/discover.js';
 import type { Recording } from '../../../shared/math/recording.js';
 import { createSeededRandom } from '../../../shared/math/seeded-random.js';
 import type { DiscoveryResult } from '../../../shared/schemas/discovery-result.js';
-import { sweepSettingsSchema, type SweepSettings } from '../../../shared/schemas/sweep-description.js';
+import { sweepSettingsSchema, type SweepSettingsInput } from '../../../shared/schemas/sweep-description.js';
 import type { Mechanism } from '../../support/mechanisms/mechanism.js';
 import { simulateRecording, type SimulationOptions } from '../../support/mechanisms/simulate-recording.js';
 
@@ -22,7 +22,7 @@ export interface RecoveryCase {
   forces?: (t: number) => number[];
   /** The true term fixed as the reference, with its handbook coefficient. */
   reference?: string;
-  settings: Omit<Partial<SweepSettings>, 'reference' | 'coordinates'> & { sizes: { min: number; max: number } };
+  settings: Omit<SweepSettingsInput, 'reference' | 'coordinates'>;
   duration: number;
   sampleStep: number;
   positionNoise?: { sigma: number; seed: number };
