@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import { execFile } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { discoveryResultSchema } from '../../../shared/schemas/discovery-result.js';
@@ -63,62 +63,97 @@ describe('conserva discover (command line)', function () {
   });
   afterEach(() => rmSync(dir, { recursive: true, force: true }));
 
-  async function expectRefusal(file: string, ...fragments: string[]): Promise<void> {
-    const run = await conserva(['discover', file, '--json']);
-    expect(run.status, run.stderr).to.equal(2);
-    expect(run.stdout).to.equal('');
-    for (const fragment of fragments) expect(run.stderr).to.contain(fragment);
-  }
+  describe('refusals (exit 2, a clear message on standard error, nothing on standard output)', () => {
+    /** Each case writes its files into its own folder and names the description to run. */
+    const refusals: { title: string; prepare: (folder: string) => string; fragments: string[] }[] = [
+      {
+        title: 'a missing column, naming the file and the column',
+        prepare: (f) => writeCase(f, (d) => ((d['columns'] as Record<string, unknown>)['th'] = 'angle_rad')),
+        fragments: ['run.csv', 'no column "angle_rad"'],
+      },
+      {
+        title: 'a non-numeric cell, naming its row and column',
+        prepare: (f) => writeCase(f, undefined, smallCsv(40).replace(/\n0\.05,[^,]*,/, '\n0.05,n/a,')),
+        fragments: ['run.csv, line 7 (data row 6), column "angle"', '"n/a" is not a number'],
+      },
+      {
+        title: 'time that does not increase, naming the row',
+        prepare: (f) => writeCase(f, undefined, smallCsv(40).replace('\n0.03,', '\n0.01,')),
+        fragments: ['line 5 (data row 4), column "t"', 'does not increase'],
+      },
+      {
+        title: 'a recording too short for the derivative window',
+        prepare: (f) => writeCase(f, (d) => (d['derivatives'] = { method: 'savitzky-golay', window: 31, order: 3 }), smallCsv(25)),
+        fragments: ['run.csv has 25 samples', 'window 31'],
+      },
+      {
+        title: 'a recording too short for the balance window',
+        prepare: (f) => writeCase(f, (d) => (d['balance'] = { window: 60, stride: 5 })),
+        fragments: ['run.csv', 'too few for a balance window of 60'],
+      },
+      {
+        title: 'an unknown symbol in a term, naming the term',
+        prepare: (f) => writeCase(f, (d) => (d['terms'] = ['cos(th)', 'dth*dx'])),
+        fragments: ['Term "dth*dx"', 'unknown symbol "dx"'],
+      },
+      {
+        title: 'passive data without a reference term',
+        prepare: (f) => writeCase(f, (d) => (d['columns'] = { time: 't', th: 'angle' })),
+        fragments: ['carry no forces', 'reference'],
+      },
+      {
+        title: 'a term that is a constant',
+        prepare: (f) => writeCase(f, (d) => (d['terms'] = ['cos(th)', 'sin(th)^2 + cos(th)^2'])),
+        fragments: ['Term "sin(th)^2 + cos(th)^2"', 'constant'],
+      },
+      {
+        title: 'an invalid field value, naming the field',
+        prepare: (f) => writeCase(f, (d) => (d['form'] = 'integral')),
+        fragments: ['form:'],
+      },
+      {
+        title: 'a missing field, naming it',
+        prepare: (f) => writeCase(f, (d) => delete d['sizes']),
+        fragments: ['sizes:'],
+      },
+      { title: 'a missing description file', prepare: (f) => path.join(f, 'nowhere.json'), fragments: ['no such file'] },
+      {
+        title: 'malformed JSON',
+        prepare: (f) => {
+          writeFileSync(path.join(f, 'broken.json'), '{"coordinates": [');
+          return path.join(f, 'broken.json');
+        },
+        fragments: ['not valid JSON'],
+      },
+    ];
+    const results = new Map<string, Run>();
+    let folder: string;
 
-  it('refuses a missing column, naming the file and the column', async () => {
-    await expectRefusal(writeCase(dir, (d) => ((d['columns'] as Record<string, unknown>)['th'] = 'angle_rad')), 'run.csv', 'no column "angle_rad"');
-  });
+    // The runs are independent processes: start them a few at a time so the file takes less wall time.
+    before(async () => {
+      folder = mkdtempSync(path.join(tmpdir(), 'conserva-cli-refusals-'));
+      const queue = refusals.map((refusal, k) => {
+        const own = path.join(folder, String(k));
+        mkdirSync(own);
+        return { title: refusal.title, file: refusal.prepare(own) };
+      });
+      const worker = async () => {
+        for (let next = queue.shift(); next; next = queue.shift()) {
+          results.set(next.title, await conserva(['discover', next.file, '--json']));
+        }
+      };
+      await Promise.all([worker(), worker(), worker()]);
+    });
+    after(() => rmSync(folder, { recursive: true, force: true }));
 
-  it('refuses a non-numeric cell, naming its row and column', async () => {
-    const csv = smallCsv(40).replace(/\n0\.05,[^,]*,/, '\n0.05,n/a,');
-    await expectRefusal(writeCase(dir, undefined, csv), 'run.csv, line 7 (data row 6), column "angle"', '"n/a" is not a number');
-  });
-
-  it('refuses time that does not increase, naming the row', async () => {
-    const csv = smallCsv(40).replace('\n0.03,', '\n0.01,');
-    await expectRefusal(writeCase(dir, undefined, csv), 'line 5 (data row 4), column "t"', 'does not increase');
-  });
-
-  it('refuses a recording too short for the derivative window', async () => {
-    await expectRefusal(
-      writeCase(dir, (d) => (d['derivatives'] = { method: 'savitzky-golay', window: 31, order: 3 }), smallCsv(25)),
-      'run.csv has 25 samples',
-      'window 31',
-    );
-  });
-
-  it('refuses a recording too short for the balance window', async () => {
-    await expectRefusal(writeCase(dir, (d) => (d['balance'] = { window: 60, stride: 5 })), 'run.csv', 'too few for a balance window of 60');
-  });
-
-  it('refuses an unknown symbol in a term, naming the term', async () => {
-    await expectRefusal(writeCase(dir, (d) => (d['terms'] = ['cos(th)', 'dth*dx'])), 'Term "dth*dx"', 'unknown symbol "dx"');
-  });
-
-  it('refuses passive data without a reference term', async () => {
-    const columns = { time: 't', th: 'angle' };
-    await expectRefusal(writeCase(dir, (d) => (d['columns'] = columns)), 'carry no forces', 'reference');
-  });
-
-  it('refuses a term that is a constant', async () => {
-    await expectRefusal(writeCase(dir, (d) => (d['terms'] = ['cos(th)', 'sin(th)^2 + cos(th)^2'])), 'Term "sin(th)^2 + cos(th)^2"', 'constant');
-  });
-
-  it('refuses an invalid description, naming the field', async () => {
-    await expectRefusal(writeCase(dir, (d) => (d['form'] = 'integral')), 'form');
-    await expectRefusal(writeCase(dir, (d) => delete d['sizes']), 'sizes');
-  });
-
-  it('refuses a missing description file and malformed JSON', async () => {
-    await expectRefusal(path.join(dir, 'nowhere.json'), 'no such file');
-    const file = path.join(dir, 'broken.json');
-    writeFileSync(file, '{"coordinates": [');
-    await expectRefusal(file, 'not valid JSON');
+    for (const refusal of refusals) {
+      it(`refuses ${refusal.title}`, () => {
+        const run = results.get(refusal.title)!;
+        expect(run.status, run.stderr).to.equal(2);
+        expect(run.stdout).to.equal('');
+        for (const fragment of refusal.fragments) expect(run.stderr).to.contain(fragment);
+      });
+    }
   });
 
   describe('on a forced pendulum simulated from its handbook equations (Landau & Lifshitz, Mechanics, sec. 5)', () => {

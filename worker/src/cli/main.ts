@@ -30,14 +30,14 @@ async function main(args: string[]): Promise<number> {
     );
     return EXIT_INVALID_INPUT;
   }
-  // Loaded here so that --help and usage errors answer without loading the math engine.
-  const { discover } = await import('../../../shared/math/discover.js');
+  // Loaded step by step so that usage errors and unreadable files are answered before the math engine loads.
   const { readDescription, readRecordings } = await import('./read-recordings.js');
-  const { progressReporter } = await import('./progress-reporter.js');
-  const { summaryText } = await import('./summary-table.js');
   const descriptionFile = files[0]!;
   const description = await readDescription(descriptionFile);
   const recordings = await readRecordings(description, descriptionFile);
+  const { discover } = await import('../../../shared/math/discover.js');
+  const { progressReporter } = await import('./progress-reporter.js');
+  const { summaryText } = await import('./summary-table.js');
   const result = discover(description, recordings, {
     onProgress: progressReporter((line) => process.stderr.write(`${line}\n`)),
   });
