@@ -28,9 +28,28 @@ export interface RegressionSystem {
 
 export type FormSettings = Pick<SweepSettings, 'form' | 'balance' | 'reference'>;
 
-/** The form's rows for any list of terms. */
+/**
+ * The form's rows for any list of terms. Refuses a term that is not finite on some recording (`1/x` where x
+ * passes through 0), naming the term, the recording and the time.
+ */
 export function formRows(settings: FormSettings, signals: readonly RecordingSignals[], terms: readonly CandidateTerm[]): FormRows {
+  for (const s of signals) for (const term of terms) checkFinite(term, s, settings.form === 'derivative');
   return settings.form === 'derivative' ? derivativeFormRows(signals, terms) : balanceFormRows(signals, terms, settings.balance);
+}
+
+function checkFinite(term: CandidateTerm, signals: RecordingSignals, rates: boolean): void {
+  for (const [what, values] of [
+    ['its value', term.value(signals.samples)],
+    ...(rates ? [['its time derivative', term.timeDerivative(signals.samples)] as const] : []),
+  ] as const) {
+    const k = values.findIndex((v) => !Number.isFinite(v));
+    if (k >= 0) {
+      throw new DiscoveryInputError(
+        `Term "${term.typed}": ${what} is not a finite number in ${signals.name} at time ${signals.time[k]}; ` +
+          'remove the term or the samples where it is undefined.',
+      );
+    }
+  }
 }
 
 /**

@@ -138,4 +138,13 @@ describe('regression forms', () => {
       'Known term "dx^2" cannot be identified',
     );
   });
+
+  it('refuses a term that is not finite on a recording, naming the term, recording and time', () => {
+    const settings = settingsOf({ form: 'balance', terms: ['dth^2', 'cos(th)', '1/th'] });
+    const set = assembleCandidateSet(settings, symbols);
+    const signals = [recordingSignals(recording('swing.csv', 0.4), symbols, settings.derivatives, false)];
+    // One sample exactly at th = 0, where 1/th is infinite.
+    signals[0]!.samples.column('th')[10] = 0;
+    expect(() => buildTrainingSystem(settings, signals, set, [])).to.throw(DiscoveryInputError, 'Term "1/th": its value is not a finite number in swing.csv at time');
+  });
 });
