@@ -1,0 +1,123 @@
+import type { SizeFrontEntry } from '../schemas/discovery-result.js';
+import type { SweepSettings } from '../schemas/sweep-description.js';
+import type { PreparedDiscovery } from './discovery-preparation.js';
+import { workOutModel, type ModelContext, type WorkedModel } from './leaderboard-models.js';
+import {
+  indistinguishableWarning,
+  rankingTolerance,
+  rankModels,
+  scoreOf,
+  type RankingCriterion,
+  type RankingRule,
+} from './model-choice.js';
+import { NOISE_FLOOR_FACTOR, noiseFloorRmse } from './noise-floor.js';
+import { createNormalRandom, createSeededRandom } from './seeded-random.js';
+import type { RankedSubset, SweepOutcome } from './sweep-problem.js';
+
+/** Fixed seed of the noise draws, so a discovery gives the same result every time it runs. */
+const NOISE_SEED = 20261202;
+
+export interface ModelSelection {
+  /** Best first, at most `top`. */
+  ranked: WorkedModel[];
+  front: SizeFrontEntry[];
+  rule: RankingRule;
+  warnings: string[];
+}
+
+/**
+ * The finish step (design: "finish"): re-fits the leaderboard, measures each size's best model against its
+ * noise floor (the front of error against size), stops growth at the floor when ranking by BIC, ranks the
+ * models (model-choice.ts) and warns when the data do not decide.
+ */
+export function selectModels(prepared: PreparedDiscovery, settings: SweepSettings, outcome: SweepOutcome): ModelSelection {
+  const warnings: string[] = [];
+  const reference = prepared.set.reference;
+  const context: ModelContext = {
+    training: prepared.training,
+    validation: prepared.validation,
+    reference: reference ? { term: reference, coefficient: settings.reference!.coefficient } : null,
+    trainingSignals: prepared.trainingSignals,
+  };
+  const termsOf = (model: WorkedModel) => [
+    ...model.columns.map((j) => prepared.training.terms[j]!),
+    ...(context.reference ? [context.reference.term] : []),
+  ];
+  const normal = createNormalRandom(createSeededRandom(NOISE_SEED));
+  const floorOn = (recordings: PreparedDiscovery['train']) => (model: WorkedModel) =>
+    noiseFloorRmse({ terms: termsOf(model), coefficients: model.coefficients }, recordings, settings, prepared.symbols, prepared.needAccelerations, normal);
+
+  const criterion: RankingCriterion = prepared.validation ? 'validation' : 'bic';
+  const front = sizeFront(outcome, context, prepared.sizes, floorOn(prepared.train));
+  // Validation error measures directly what the stop guards against, so the stop serves ranking by BIC.
+  const stop =
+    criterion === 'bic'
+      ? front.find((entry) => entry.noiseFloorRmse !== null && entry.trainRmse <= NOISE_FLOOR_FACTOR * entry.noiseFloorRmse)
+      : undefined;
+  if (stop && stop.size < prepared.sizes.max) {
+    warnings.push(
+      `Models stop growing at size ${stop.size}: its best model's residual (${stop.trainRmse.toPrecision(3)}) is within ` +
+        `${NOISE_FLOOR_FACTOR} times the residual the noise in the recordings alone gives it ` +
+        `(${stop.noiseFloorRmse!.toPrecision(3)}), so larger models are ranked after it.`,
+    );
+  }
+
+  const worked = leaderboardSubsets(outcome).map((subset) => workOutModel(subset, context));
+  const rule = rankingRule(worked, criterion, stop?.size ?? null, floorOn(prepared.validate));
+  const ranked = rankModels(worked, rule).slice(0, settings.top);
+  const ambiguity = indistinguishableWarning(ranked, rule, termsOf, prepared.trainingSignals);
+  if (ambiguity) warnings.push(ambiguity);
+  return { ranked, front, rule, warnings };
+}
+
+/**
+ * The ranking rule: criterion, tolerance and stop. With validation recordings the tolerance also covers the
+ * validation residual that noise alone gives the best model on those recordings.
+ */
+function rankingRule(
+  models: WorkedModel[],
+  criterion: RankingCriterion,
+  stopSize: number | null,
+  validationFloorOf: (model: WorkedModel) => number,
+): RankingRule {
+  if (criterion === 'bic' || models.length === 0) return { criterion, tolerance: rankingTolerance(criterion, null, null), stopSize };
+  const best = models.reduce((a, b) => (scoreOf(b, criterion) < scoreOf(a, criterion) ? b : a));
+  return { criterion, tolerance: rankingTolerance(criterion, best.validationRmse, validationFloorOf(best)), stopSize };
+}
+
+/** The best subsets overall and of every size, each once. */
+function leaderboardSubsets(outcome: SweepOutcome): RankedSubset[] {
+  const seen = new Set<string>();
+  const subsets: RankedSubset[] = [];
+  for (const subset of [...outcome.best, ...Object.values(outcome.bestBySize).flat()]) {
+    const key = subset.members.join(',');
+    if (seen.has(key)) continue;
+    seen.add(key);
+    subsets.push(subset);
+  }
+  return subsets;
+}
+
+/** The best model of each size by training residual, with its noise floor: the front of error against size. */
+function sizeFront(
+  outcome: SweepOutcome,
+  context: ModelContext,
+  sizes: { min: number; max: number },
+  floorOf: (model: WorkedModel) => number,
+): SizeFrontEntry[] {
+  const front: SizeFrontEntry[] = [];
+  for (let size = sizes.min; size <= sizes.max; size++) {
+    const first = outcome.bestBySize[size]?.[0];
+    if (!first) continue;
+    const model = workOutModel(first, context);
+    front.push({
+      size,
+      terms: model.terms,
+      trainRmse: model.trainRmse,
+      validationRmse: model.validationRmse,
+      bic: model.bic,
+      noiseFloorRmse: floorOf(model),
+    });
+  }
+  return front;
+}
