@@ -21,16 +21,20 @@ const demoWanted = (process.env.CONSERVA_DEMO ?? (production ? 'off' : 'on')) !=
 
 const services: ServiceProcess[] = [];
 let stopDatabaseAtExit = false;
-let shuttingDown = false;
+let shutdown: Promise<never> | null = null;
 
-async function shutDown(code: number): Promise<never> {
-  if (!shuttingDown) {
-    shuttingDown = true;
+/**
+ * Stops the children, then the database if this run started it, then exits. Ctrl-C often arrives twice (once
+ * from the terminal, once relayed by tsx); later calls wait for the first shutdown instead of cutting it short.
+ */
+function shutDown(code: number): Promise<never> {
+  shutdown ??= (async () => {
     await Promise.all(services.map((service) => stopService(service)));
     if (stopDatabaseAtExit && stopDevDatabase()) log('PostgreSQL stopped.');
     log('Stopped.');
-  }
-  process.exit(code);
+    process.exit(code);
+  })();
+  return shutdown;
 }
 
 async function seedDemoData(databaseUrl: string): Promise<DemoAccount[]> {
@@ -46,7 +50,7 @@ async function seedDemoData(databaseUrl: string): Promise<DemoAccount[]> {
 
 async function waitUntilHealthy(url: string, timeoutMs: number): Promise<boolean> {
   const until = Date.now() + timeoutMs;
-  while (Date.now() < until && !shuttingDown) {
+  while (Date.now() < until && !shutdown) {
     if (services.some((service) => service.child.exitCode !== null)) return false;
     try {
       if ((await fetch(`${url}api/health`)).ok) return true;
@@ -92,7 +96,7 @@ async function main(): Promise<void> {
   services.push(startService('worker', 'worker/src/main.ts', projectRoot, env));
   for (const service of services) {
     void service.exited.then((code) => {
-      if (shuttingDown) return;
+      if (shutdown) return;
       log(`The ${service.name} process ended unexpectedly (${code}); stopping the rest.`);
       void shutDown(1);
     });
