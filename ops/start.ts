@@ -79,6 +79,10 @@ process.on('SIGTERM', () => void shutDown(0));
 
 async function main(): Promise<void> {
   log(`Starting Conserva (${production ? 'production' : 'development'}).`);
+  if (production && (process.env.CONSERVA_SESSION_SECRET ?? '').length < 32) {
+    log('NODE_ENV=production needs CONSERVA_SESSION_SECRET (at least 32 random characters).');
+    await shutDown(1);
+  }
   if (!(await buildWebIfStale(projectRoot, log))) await shutDown(1);
   const database = await startDevDatabase(log);
   stopDatabaseAtExit = database.startedNow;
