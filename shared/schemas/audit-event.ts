@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** Actions recorded in the audit trail. */
 export const auditActions = [

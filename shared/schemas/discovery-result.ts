@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { derivativeSettingsSchema, balanceSettingsSchema, referenceTermSchema } from './sweep-description.js';
 
 /*

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** Answer of GET /api/health. */
 export const healthSchema = z.object({

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** Body of POST /api/projects and PATCH /api/projects/:id. */
 export const projectInputSchema = z.object({

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 export const roles = ['admin', 'analyst', 'viewer'] as const;
 export const roleSchema = z.enum(roles);

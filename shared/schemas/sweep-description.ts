@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /*
  * What a sweep is asked to do. Two layers, so the API can reuse the part that has nothing to do with files:
@@ -48,7 +48,7 @@ export const derivativeSettingsSchema = z.discriminatedUnion('method', [
       order: z.number().int().min(2).max(10),
     })
     .strict()
-    .refine((s) => s.order < s.window, { message: 'The Savitzky-Golay order must be smaller than its window.', path: ['order'] }),
+    .refine((s) => s.order <= s.window - 2, { message: 'The Savitzky-Golay window must be at least two samples longer than its order (for example window 9 with order 4).', path: ['order'] }),
 ]);
 export type DerivativeSettings = z.infer<typeof derivativeSettingsSchema>;
 

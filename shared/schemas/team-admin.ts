@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** Body of POST /api/admin/teams and PATCH /api/admin/teams/:id. */
 export const teamInputSchema = z.object({

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { roleSchema } from './session.js';
 
 /** A new password: long enough to resist guessing, short enough to hash quickly. */

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { notFound } from './http-error.js';
 
 const uuid = z.uuid();

@@ -1,6 +1,6 @@
 import type { MikroORM } from '@mikro-orm/postgresql';
 import { Router } from 'express';
-import { z } from 'zod';
+import * as z from 'zod';
 import type { AuditEventList } from '../../../shared/schemas/audit-event.js';
 import { AuditEvent } from '../entities/audit-event.js';
 import { HttpError } from '../http/http-error.js';
