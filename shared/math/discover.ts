@@ -59,6 +59,7 @@ export function discover(settings: SweepSettings, recordings: readonly Recording
     rankedBy: selection.rule.criterion,
     rankingTolerance: selection.rule.tolerance,
     models: selection.ranked.map(({ columns: _columns, ...model }) => model),
+    simplification: selection.simplification,
     front: selection.front,
     best: best
       ? {

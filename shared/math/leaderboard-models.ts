@@ -8,6 +8,9 @@ import { refitColumns, residualSumOfSquares } from './refit.js';
 import type { RegressionSystem } from './regression-system.js';
 import type { RankedSubset } from './sweep-problem.js';
 
+/** Which candidates a model uses: a leaderboard subset, or one built by a later rule (negligible-terms.ts). */
+export type SubsetChoice = Pick<RankedSubset, 'size' | 'members'>;
+
 /** A leaderboard entry worked out, with the column indices it uses for later comparisons. */
 export interface WorkedModel extends DiscoveredModel {
   /** Indices into the training system's terms of the fitted columns (known first). */
@@ -22,15 +25,15 @@ export interface ModelContext {
 }
 
 /** Column indices of a subset: the known columns, then the chosen candidates. */
-export function subsetColumns(subset: RankedSubset, knownCount: number): number[] {
+export function subsetColumns(subset: SubsetChoice, knownCount: number): number[] {
   return [...Array.from({ length: knownCount }, (_, i) => i), ...subset.members.map((m) => knownCount + m)];
 }
 
 /**
- * Re-fits one leaderboard subset on the original columns and works it out: coefficients, residual scores,
+ * Re-fits one subset on the original columns and works it out: coefficients, residual scores,
  * validation error (the same form's residual on the validation recordings), energy and Lagrangian.
  */
-export function workOutModel(subset: RankedSubset, context: ModelContext): WorkedModel {
+export function workOutModel(subset: SubsetChoice, context: ModelContext): WorkedModel {
   const { training, validation, reference } = context;
   const columns = subsetColumns(subset, training.knownCount);
   const fit = refitColumns(

@@ -1,5 +1,6 @@
 import type { CandidateTerm } from './candidate-term.js';
-import { concatenate } from './form-rows.js';
+import { conservedDifference, type ConservedDifference } from './conserved-difference.js';
+import { energyOnSamples, relativeEnergyDifference } from './energy-on-samples.js';
 import type { WorkedModel } from './leaderboard-models.js';
 import type { RecordingSignals } from './recording-signals.js';
 
@@ -60,7 +61,9 @@ export function rankModels(models: readonly WorkedModel[], rule: RankingRule): W
 /**
  * Warns when models other than the chosen one score within the tolerance of the best but describe a
  * different energy on the training samples: the data given do not decide between them (method.md
- * section 3, the known trap).
+ * section 3, the known trap). When the difference of the two energies is itself conserved along every
+ * training recording (conserved-difference.ts), the warning names it: the recordings conserve a second
+ * quantity, and only data in which it changes can separate the energy from the energy plus that quantity.
  */
 export function indistinguishableWarning(
   ranked: readonly WorkedModel[],
@@ -77,41 +80,26 @@ export function indistinguishableWarning(
   );
   const chosenEnergy = energyOnSamples(termsOf(chosen), chosen.coefficients, signals);
   const rivals = close.filter(
-    (m) => relativeDifference(chosenEnergy, energyOnSamples(termsOf(m), m.coefficients, signals)) > SAME_ENERGY_TOLERANCE,
+    (m) => relativeEnergyDifference(chosenEnergy, energyOnSamples(termsOf(m), m.coefficients, signals)) > SAME_ENERGY_TOLERANCE,
   );
   if (rivals.length === 0) return null;
   const measure = rule.criterion === 'validation' ? 'validation errors' : 'BIC values';
-  return (
+  const undecided =
     `The data given do not decide between the chosen model (${chosen.terms.join(', ')}) and ` +
     `${rivals.map((m) => `(${m.terms.join(', ')})`).join(', ')}: their ${measure} are within ` +
-    `${rule.tolerance.toPrecision(3)} of the best, yet their energies differ on the training samples. Add ` +
-    'recordings from other initial conditions, forced recordings or validation recordings.'
+    `${rule.tolerance.toPrecision(3)} of the best, yet their energies differ on the training samples.`;
+  const asPair = (m: WorkedModel) => ({ terms: termsOf(m), coefficients: m.coefficients });
+  const conserved = rivals
+    .map((m) => ({ rival: m, difference: conservedDifference(asPair(chosen), asPair(m), signals) }))
+    .find((d): d is { rival: WorkedModel; difference: ConservedDifference } => d.difference !== null);
+  if (!conserved) {
+    return `${undecided} Add recordings from other initial conditions, forced recordings or validation recordings.`;
+  }
+  return (
+    `${undecided} The training recordings also conserve another quantity, ${conserved.difference.text} (the energy ` +
+    `of (${conserved.rival.terms.join(', ')}) minus the chosen one; along each recording it varies by ` +
+    `${conserved.difference.variation.toExponential(1)} of the size of its parts), so any multiple of it can be ` +
+    'added to the energy without changing the fit. Add forced recordings, or ' +
+    'recordings in which that quantity changes (push or brake a coordinate that otherwise moves freely, for example).'
   );
-}
-
-function energyOnSamples(terms: CandidateTerm[], coefficients: readonly number[], signals: readonly RecordingSignals[]): Float64Array {
-  const energy = new Float64Array(signals.reduce((sum, s) => sum + s.length, 0));
-  terms.forEach((term, j) => {
-    const values = concatenate(signals.map((s) => term.value(s.samples)));
-    for (let i = 0; i < energy.length; i++) energy[i] = energy[i]! + coefficients[j]! * values[i]!;
-  });
-  return energy;
-}
-
-/** rms of (a - b) with their means removed, relative to the rms of a with its mean removed. */
-function relativeDifference(a: Float64Array, b: Float64Array): number {
-  const n = a.length;
-  let meanA = 0;
-  let meanB = 0;
-  for (let i = 0; i < n; i++) {
-    meanA += a[i]! / n;
-    meanB += b[i]! / n;
-  }
-  let diff = 0;
-  let size = 0;
-  for (let i = 0; i < n; i++) {
-    diff += (a[i]! - meanA - b[i]! + meanB) ** 2;
-    size += (a[i]! - meanA) ** 2;
-  }
-  return size > 0 ? Math.sqrt(diff / size) : diff > 0 ? Infinity : 0;
 }

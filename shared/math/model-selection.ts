@@ -10,6 +10,9 @@ import {
   type RankingCriterion,
   type RankingRule,
 } from './model-choice.js';
+import { dropNegligibleTerms, NEGLIGIBLE_ENERGY_CHANGE, type Simplification } from './negligible-terms.js';
+import { energyOnSamples } from './energy-on-samples.js';
+import { kineticDegeneracy, type KineticDegeneracy } from './kinetic-degeneracy.js';
 import { NOISE_FLOOR_FACTOR, noiseFloorRmse } from './noise-floor.js';
 import { createNormalRandom, createSeededRandom } from './seeded-random.js';
 import type { RankedSubset, SweepOutcome } from './sweep-problem.js';
@@ -22,6 +25,8 @@ export interface ModelSelection {
   ranked: WorkedModel[];
   front: SizeFrontEntry[];
   rule: RankingRule;
+  /** The best-scoring model's terms and the negligible terms left out of it, when any were. */
+  simplification: { from: string[]; dropped: Simplification['dropped']; tolerance: number } | null;
   warnings: string[];
 }
 
@@ -64,10 +69,69 @@ export function selectModels(prepared: PreparedDiscovery, settings: SweepSetting
 
   const worked = leaderboardSubsets(outcome).map((subset) => workOutModel(subset, context));
   const rule = rankingRule(worked, criterion, stop?.size ?? null, floorOn(prepared.validate));
-  const ranked = rankModels(worked, rule).slice(0, settings.top);
+  const energyOf = (model: WorkedModel) => energyOnSamples(termsOf(model), model.coefficients, prepared.trainingSignals);
+  const { ranked: all, simplification } = simplifyChosen(rankModels(worked, rule), context, prepared.sizes.min, energyOf);
+  if (simplification) warnings.push(simplificationWarning(simplification));
+  const ranked = all.slice(0, settings.top);
   const ambiguity = indistinguishableWarning(ranked, rule, termsOf, prepared.trainingSignals);
   if (ambiguity) warnings.push(ambiguity);
-  return { ranked, front, rule, warnings };
+  const chosen = ranked[0];
+  const degeneracy = chosen
+    ? kineticDegeneracy(termsOf(chosen), chosen.coefficients, prepared.trainingSignals, prepared.symbols.velocities)
+    : null;
+  if (degeneracy) warnings.push(degeneracyWarning(degeneracy, prepared.symbols.velocities));
+  return { ranked, front, rule, simplification, warnings };
+}
+
+/**
+ * Drops the negligible terms of the first-ranked model (negligible-terms.ts) and puts the simplified model
+ * first; the model it came from keeps its place after it, so the leaderboard still shows what scored best.
+ */
+function simplifyChosen(
+  ranked: WorkedModel[],
+  context: ModelContext,
+  minSize: number,
+  energyOf: (model: WorkedModel) => Float64Array,
+): { ranked: WorkedModel[]; simplification: ModelSelection['simplification'] } {
+  const [first] = ranked;
+  if (!first) return { ranked, simplification: null };
+  const { model, dropped } = dropNegligibleTerms(first, context, minSize, energyOf);
+  if (dropped.length === 0) return { ranked, simplification: null };
+  const key = (m: WorkedModel) => m.columns.join(',');
+  return {
+    ranked: [model, ...ranked.filter((m) => key(m) !== key(model))],
+    simplification: { from: first.terms, dropped, tolerance: NEGLIGIBLE_ENERGY_CHANGE },
+  };
+}
+
+function simplificationWarning(simplification: NonNullable<ModelSelection['simplification']>): string {
+  const dropped = simplification.dropped.map(
+    (d) => `${d.term} (coefficient ${d.coefficient.toPrecision(3)}; energy change ${d.energyChange.toExponential(1)})`,
+  );
+  return (
+    `The best-scoring model (${simplification.from.join(', ')}) was simplified by leaving out ${dropped.join(', ')}: ` +
+    `without ${dropped.length > 1 ? 'them' : 'it'} the energy changes by less than ${simplification.tolerance} of its variation ` +
+    'on the training samples, too little to matter; such a term fits the error of the estimated signals rather than ' +
+    'the motion. The simpler model ranks first, the best-scoring one after it.'
+  );
+}
+
+function degeneracyWarning(degeneracy: KineticDegeneracy, velocities: readonly string[]): string {
+  const component = (v: number) => (Math.abs(v) < 5e-3 ? '0' : Math.abs(v - 1) < 5e-3 ? '1' : v.toFixed(2));
+  const where = `on ${(100 * degeneracy.share).toFixed(0)} % of the training samples`;
+  const what = degeneracy.everyDirection
+    ? `The chosen energy has next to no kinetic part ${where} (below ${NEGLIGIBLE_ENERGY_CHANGE} of the energy's variation for velocities of the recorded size), so its Lagrangian cannot say how the mechanism moves.`
+    : `The chosen energy hardly changes with the velocities along ${velocities.join(' : ')} = ` +
+      `${degeneracy.direction.map(component).join(' : ')} ${where} (its kinetic part there is below ` +
+      `${NEGLIGIBLE_ENERGY_CHANGE} of the energy's variation, or negative), so its Lagrangian cannot say how the ` +
+      'mechanism moves in that direction.';
+  const advice = degeneracy.everyDirection
+    ? 'The data do not decide the kinetic part of the energy: check the candidate terms, the derivative estimator and ' +
+      'the noise in the recordings.'
+    : 'The data do not decide that part of the energy; with passive recordings, often because they conserve a ' +
+      'momentum as well as the energy. Add recordings forced in that direction, or name a kinetic term for it as ' +
+      'known or as the reference.';
+  return `${what} ${advice}`;
 }
 
 /**

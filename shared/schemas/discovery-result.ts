@@ -43,6 +43,23 @@ export const sizeFrontEntrySchema = z.object({
 });
 export type SizeFrontEntry = z.infer<typeof sizeFrontEntrySchema>;
 
+/** A term left out of the best-scoring model because it changes the energy negligibly (shared/math/negligible-terms.ts). */
+export const droppedTermSchema = z.object({
+  term: z.string(),
+  /** Its coefficient in the model it was dropped from. */
+  coefficient: z.number(),
+  /** rms change of the energy on the training samples, relative to the energy's variation, once it is left out. */
+  energyChange: z.number(),
+});
+
+export const simplificationSchema = z.object({
+  /** Terms of the best-scoring model before its negligible terms were left out. */
+  from: z.array(z.string()),
+  dropped: z.array(droppedTermSchema),
+  /** Energy changes below this are negligible. */
+  tolerance: z.number(),
+});
+
 export const excludedTermSchema = z.object({ term: z.string(), reason: z.string() });
 
 export const signalReportSchema = z.object({
@@ -74,6 +91,12 @@ export const discoveryResultSchema = z.object({
    */
   rankingTolerance: z.number(),
   models: z.array(discoveredModelSchema),
+  /**
+   * When the best-scoring model carried terms that change its energy negligibly: which, and from what model.
+   * The first model is then the model without them. Null when nothing was dropped; absent in results stored
+   * before the rule existed.
+   */
+  simplification: simplificationSchema.nullable().optional(),
   front: z.array(sizeFrontEntrySchema),
   best: z
     .object({
