@@ -7,14 +7,16 @@ export const SINGULAR_PIVOT_TOLERANCE = 1e-13;
 /**
  * Solves the n x n system A x = b in place by Gaussian elimination with partial pivoting (the textbook
  * algorithm; the matrices here are a few rows, where it is as good as any). `a` is row-major and is destroyed;
- * `b` receives the solution. Returns false, leaving both destroyed, when a pivot is below
- * SINGULAR_PIVOT_TOLERANCE times the largest entry of A (or A is zero or not finite). Allocates nothing.
+ * `b` receives the solution. Returns the size of the smallest pivot, a cheap measure of how near A is to
+ * singular; returns 0, leaving both destroyed, when a pivot is not above SINGULAR_PIVOT_TOLERANCE times the
+ * largest entry of A (or A is zero or not finite). Allocates nothing.
  */
-export function solveInPlace(a: Float64Array, b: Float64Array, n: number): boolean {
+export function solveInPlace(a: Float64Array, b: Float64Array, n: number): number {
   let scale = 0;
   for (let i = 0; i < n * n; i++) scale = Math.max(scale, Math.abs(a[i]!));
-  if (!(scale > 0) || !Number.isFinite(scale)) return false;
+  if (!(scale > 0) || !Number.isFinite(scale)) return 0;
   const tolerance = SINGULAR_PIVOT_TOLERANCE * scale;
+  let smallestPivot = Infinity;
   for (let col = 0; col < n; col++) {
     let pivotRow = col;
     let pivotSize = Math.abs(a[col * n + col]!);
@@ -25,7 +27,8 @@ export function solveInPlace(a: Float64Array, b: Float64Array, n: number): boole
         pivotRow = r;
       }
     }
-    if (!(pivotSize > tolerance)) return false;
+    if (!(pivotSize > tolerance)) return 0;
+    smallestPivot = Math.min(smallestPivot, pivotSize);
     if (pivotRow !== col) {
       for (let c = col; c < n; c++) {
         const t = a[col * n + c]!;
@@ -49,5 +52,5 @@ export function solveInPlace(a: Float64Array, b: Float64Array, n: number): boole
     for (let c = r + 1; c < n; c++) sum -= a[r * n + c]! * b[c]!;
     b[r] = sum / a[r * n + r]!;
   }
-  return true;
+  return smallestPivot;
 }

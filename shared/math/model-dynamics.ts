@@ -16,8 +16,11 @@ export interface ModelDynamics {
   massMatrix(q: ArrayLike<number>, dq: ArrayLike<number>, out: Float64Array): void;
   /** f(q, dq, u) into `out`. */
   forceVector(q: ArrayLike<number>, dq: ArrayLike<number>, u: ArrayLike<number>, out: Float64Array): void;
-  /** ddq = M^-1 f into `ddq`; false (ddq then undefined) where M is singular to working precision. */
-  accelerations(q: ArrayLike<number>, dq: ArrayLike<number>, u: ArrayLike<number>, ddq: Float64Array): boolean;
+  /**
+   * ddq = M^-1 f into `ddq`. Returns the size of the smallest elimination pivot (above 0, and small near a
+   * singular M), or 0 where M is singular to working precision (ddq is then undefined).
+   */
+  accelerations(q: ArrayLike<number>, dq: ArrayLike<number>, u: ArrayLike<number>, ddq: Float64Array): number;
 }
 
 /** Compiles symbolic equations of motion (euler-lagrange.ts) into numeric dynamics. */

@@ -49,7 +49,7 @@ describe('equations of motion from a Lagrangian (Euler-Lagrange)', () => {
       const ddq = new Float64Array(mechanism.coordinates.length);
       let worst = 0;
       for (const s of sampleStates(mechanism.coordinates.length, 200, 7, q0Range)) {
-        expect(dynamics.accelerations(s.q, s.dq, s.u, ddq)).to.equal(true);
+        expect(dynamics.accelerations(s.q, s.dq, s.u, ddq)).to.be.above(0);
         const expected = mechanism.accelerations(s.q, s.dq, s.u);
         expected.forEach((e, i) => (worst = Math.max(worst, relativeDifference(ddq[i]!, e))));
       }
