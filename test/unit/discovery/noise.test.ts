@@ -1,57 +1,18 @@
 import { expect } from 'chai';
-import { doublePendulumTorques, forcesOf } from '../../support/mechanisms/forcing.js';
-import { doublePendulum } from '../../support/mechanisms/handbook-mechanisms.js';
-import { expectSameTerms, runRecovery, type RecoveryCase, type Run } from './recovery-harness.js';
+import { handbookError, noisyDoublePendulum } from './noisy-double-pendulum.js';
+import { runRecovery } from './recovery-harness.js';
 
-// Double pendulum (Landau & Lifshitz, Mechanics, sec. 5, problem 1), forced on both joints, with Gaussian noise
-// of standard deviation 1e-3 rad on every sampled angle (about the quantization of a 12-bit encoder) at 100
-// samples/s. Both forms get the same Savitzky-Golay estimator (window 9, order 4), the same generated 38
-// candidates, three training runs and one validation run. The derivative form needs accelerations, which the
-// estimator makes from the noisy angles by differentiating twice; the balance form integrates instead.
-const runs: Run[] = [
-  { q: [0.9, -0.5], dq: [0, 1.2], role: 'train' },
-  { q: [-0.4, 1.1], dq: [1.5, 0], role: 'train' },
-  { q: [1.3, 0.8], dq: [-0.8, 0.6], role: 'train' },
-  { q: [0.2, -1.0], dq: [0.6, -1.8], role: 'validate' },
-];
-
-function noisy(form: 'derivative' | 'balance'): RecoveryCase {
-  return {
-    mechanism: doublePendulum,
-    runs,
-    duration: 4,
-    sampleStep: 0.01,
-    forces: forcesOf(...doublePendulumTorques),
-    positionNoise: { sigma: 1e-3, seed: 11 },
-    settings: {
-      generate: {},
-      sizes: { min: 1, max: 5 },
-      form,
-      derivatives: { method: 'savitzky-golay', window: 9, order: 4 },
-      balance: { window: 20, stride: 5 },
-      top: 5,
-    },
-  };
-}
-
-/** The worst relative coefficient error when the model has exactly the handbook terms, else null. */
-function handbookError(model: { terms: string[]; coefficients: number[] }): number | null {
-  try {
-    return expectSameTerms(model, doublePendulum.energyTerms, doublePendulum.coordinates, Infinity);
-  } catch {
-    return null;
-  }
-}
-
+// The case is in noisy-double-pendulum.ts: Gaussian noise of 1e-3 rad on every sampled angle (about the
+// quantization of a 12-bit encoder); print-noise-figures.ts prints the same comparison for other noise sizes.
 describe('noise: double pendulum with 1e-3 rad position noise', () => {
   it('the balance form still finds the handbook terms, coefficients within 5 %', () => {
-    const error = handbookError(runRecovery(noisy('balance')).models[0]!);
+    const error = handbookError(runRecovery(noisyDoublePendulum('balance', 1e-3)).models[0]!);
     expect(error, 'the balance form missed the handbook terms').not.to.equal(null);
     expect(error).to.be.below(0.05);
   });
 
   it('the derivative form does not: wrong terms, or coefficients off by more than 20 %', () => {
-    const error = handbookError(runRecovery(noisy('derivative')).models[0]!);
+    const error = handbookError(runRecovery(noisyDoublePendulum('derivative', 1e-3)).models[0]!);
     expect(error === null || error > 0.2, `derivative form coefficient error ${error}`).to.equal(true);
   });
 });

@@ -111,5 +111,16 @@ export function expectHandbookModel(result: DiscoveryResult, mechanism: Mechanis
     tolerance,
   );
   expect(best.notIdentifiable).to.deep.equal([]);
+  if (process.env.RECOVERY_FIGURES) printFigure(result, mechanism, energyError, lagrangianError);
   return Math.max(energyError, lagrangianError);
+}
+
+/**
+ * One row of the README's recovery table, printed only when RECOVERY_FIGURES is set:
+ * RECOVERY_FIGURES=1 npx mocha 'test/unit/discovery/recovery-*.test.ts'
+ */
+function printFigure(result: DiscoveryResult, mechanism: Mechanism, energyError: number, lagrangianError: number): void {
+  const data = result.reference ? `passive, reference ${result.reference.term}` : 'forced';
+  const figures = [energyError, lagrangianError].map((e) => e.toExponential(1));
+  console.log(`| ${mechanism.name} | ${result.form} | ${data} | ${result.candidateCount} | ${figures.join(' | ')} |`);
 }
