@@ -15,6 +15,13 @@ import { securityHeaders } from './http/security-headers.js';
 import { adminAuditEventsRouter } from './routes/admin-audit-events.js';
 import { adminTeamsRouter } from './routes/admin-teams.js';
 import { adminUsersRouter } from './routes/admin-users.js';
+import { adminMailboxRouter } from './routes/admin-mailbox.js';
+import { adminWorkersRouter } from './routes/admin-workers.js';
+import { adminAllowancesRouter, ownAllowanceRouter } from './routes/allowances.js';
+import { candidateSetsRouter, projectCandidateSetsRouter } from './routes/candidate-sets.js';
+import { projectRecordingsRouter, recordingsRouter } from './routes/recordings.js';
+import { projectSweepsRouter, sweepsRouter } from './routes/sweeps.js';
+import { QueueClient } from './queue/queue-client.js';
 import { healthRouter } from './routes/health.js';
 import { projectsRouter } from './routes/projects.js';
 import { sessionRouter } from './routes/session.js';
@@ -22,7 +29,16 @@ import { defaultWebDir, webAppRouter } from './web/web-app.js';
 
 export type AppConfig = Pick<
   ApiConfig,
-  'databaseUrl' | 'sessionSecret' | 'webDir' | 'loginLimit' | 'loginWindowMs' | 'trustProxy' | 'https'
+  | 'databaseUrl'
+  | 'sessionSecret'
+  | 'webDir'
+  | 'loginLimit'
+  | 'loginWindowMs'
+  | 'trustProxy'
+  | 'https'
+  | 'uploadLimitBytes'
+  | 'allowanceDefaults'
+  | 'publicUrl'
 >;
 
 export interface ConservaApp {
@@ -54,6 +70,7 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
   sessionPool.on('error', (err) => logger.error({ err }, 'session store connection failed'));
   const sessionMiddleware = createSessionMiddleware(config, sessionPool);
   const passport = createPassport(orm);
+  const queue = new QueueClient(config.databaseUrl, logger);
 
   const app = express();
   app.set('trust proxy', config.trustProxy);
@@ -69,11 +86,21 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
   api.use(passport.session());
   api.use(requireCsrfToken);
   api.use('/session', sessionRouter(orm, passport, { limit: config.loginLimit, windowMs: config.loginWindowMs }));
+  api.use('/projects/:projectId/recordings', projectRecordingsRouter(orm, config.uploadLimitBytes));
+  api.use('/projects/:projectId/candidate-sets', projectCandidateSetsRouter(orm));
+  api.use('/projects/:projectId/sweeps', projectSweepsRouter(orm, queue, { allowanceDefaults: config.allowanceDefaults }));
   api.use('/projects', projectsRouter(orm));
+  api.use('/recordings', recordingsRouter(orm));
+  api.use('/candidate-sets', candidateSetsRouter(orm));
+  api.use('/sweeps', sweepsRouter(orm, queue));
+  api.use('/allowance', ownAllowanceRouter(orm, config.allowanceDefaults));
   api.use('/admin', requireRole('admin'));
   api.use('/admin/teams', adminTeamsRouter(orm));
   api.use('/admin/users', adminUsersRouter(orm));
   api.use('/admin/audit-events', adminAuditEventsRouter(orm));
+  api.use('/admin/allowances', adminAllowancesRouter(orm, config.allowanceDefaults));
+  api.use('/admin/mailbox', adminMailboxRouter(orm));
+  api.use('/admin/workers', adminWorkersRouter(orm));
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);
@@ -81,5 +108,12 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
   app.use(webAppRouter(config.webDir ?? defaultWebDir));
   app.use(errorHandler);
 
-  return { app, sessionMiddleware, close: () => sessionPool.end() };
+  return {
+    app,
+    sessionMiddleware,
+    async close() {
+      await queue.close();
+      await sessionPool.end();
+    },
+  };
 }

@@ -15,6 +15,14 @@ export const auditActions = [
   'project.updated',
   'project.deleted',
   'demo.seeded',
+  'recording.uploaded',
+  'recording.deleted',
+  'candidate_set.created',
+  'candidate_set.updated',
+  'candidate_set.deleted',
+  'sweep.launched',
+  'sweep.cancelled',
+  'allowance.updated',
 ] as const;
 export const auditActionSchema = z.enum(auditActions);
 export type AuditAction = z.infer<typeof auditActionSchema>;

@@ -38,6 +38,8 @@ export async function createTeamWithUsers(orm: MikroORM, label: string): Promise
 export interface RequestOptions {
   /** JSON body; sent with Content-Type application/json. */
   json?: unknown;
+  /** Multipart body (fetch sets the Content-Type with its boundary). */
+  form?: FormData;
   headers?: Record<string, string>;
   /** Leave out the X-XSRF-TOKEN header (to show that the server refuses such requests). */
   withoutCsrf?: boolean;
@@ -85,10 +87,12 @@ export class TestAgent {
     if (this.cookies.size) headers.Cookie = this.cookieHeader();
     const token = this.cookies.get('XSRF-TOKEN');
     if (token && !options.withoutCsrf && !['GET', 'HEAD'].includes(method)) headers['X-XSRF-TOKEN'] = decodeURIComponent(token);
-    let body: string | undefined;
+    let body: string | FormData | undefined;
     if (options.json !== undefined) {
       headers['Content-Type'] = 'application/json';
       body = JSON.stringify(options.json);
+    } else if (options.form) {
+      body = options.form;
     }
     const response = await fetch(new URL(path, this.baseUrl), { method, headers, body, redirect: 'manual' });
     this.keepCookies(response);
@@ -100,6 +104,12 @@ export class TestAgent {
   }
   post(path: string, json?: unknown, options?: RequestOptions) {
     return this.request('POST', path, { ...options, json });
+  }
+  postForm(path: string, form: FormData, options?: RequestOptions) {
+    return this.request('POST', path, { ...options, form });
+  }
+  put(path: string, json?: unknown, options?: RequestOptions) {
+    return this.request('PUT', path, { ...options, json });
   }
   patch(path: string, json?: unknown, options?: RequestOptions) {
     return this.request('PATCH', path, { ...options, json });

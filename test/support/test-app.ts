@@ -3,7 +3,9 @@ import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { MikroORM } from '@mikro-orm/postgresql';
 import { createApp, type AppConfig } from '../../api/src/app.js';
+import { allowanceDefaultsFrom } from '../../api/src/config.js';
 import { openOrm } from '../../api/src/db/open-orm.js';
+import type { AllowanceLimits } from '../../shared/schemas/allowance.js';
 import { createLogger } from '../../api/src/logger.js';
 import { testDatabaseUrl } from './test-database.js';
 
@@ -15,6 +17,10 @@ export interface TestAppOptions {
   webDir?: string;
   /** pino level; default from CONSERVA_TEST_LOG_LEVEL, else silent. */
   logLevel?: string;
+  /** Largest recording upload (default 20 MB as in production). */
+  uploadLimitBytes?: number;
+  /** Limits new teams get (default as in production). */
+  allowanceDefaults?: AllowanceLimits;
 }
 
 export interface TestApp {
@@ -35,6 +41,9 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
     loginWindowMs: options.loginWindowMs ?? 60_000,
     trustProxy: false,
     https: false,
+    uploadLimitBytes: options.uploadLimitBytes ?? 20 * 1024 * 1024,
+    allowanceDefaults: options.allowanceDefaults ?? allowanceDefaultsFrom({}),
+    publicUrl: 'http://127.0.0.1/',
   };
   const logger = createLogger(options.logLevel ?? process.env.CONSERVA_TEST_LOG_LEVEL ?? 'silent', 'api-test');
   const conserva = createApp(orm, config, logger);

@@ -48,10 +48,10 @@ export const Sweep = defineEntity({
     excluded: p.json<{ term: string; reason: string }[]>(),
     warnings: p.json<string[]>(),
     problemMeta: p.json<ProblemMeta>().nullable(),
-    problemData: p.blob().nullable().lazy(),
+    problemData: p.blob().nullable().lazy(true, false),
     leaderboard: p.json<StoredLeaderboard>().nullable(),
     leaderboardVersion: p.integer().default(0),
-    result: p.json<DiscoveryResult>().nullable().lazy(),
+    result: p.json<DiscoveryResult>().nullable().lazy(true, false),
     notifiedAt: p.datetime().nullable(),
   },
 });

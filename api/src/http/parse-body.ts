@@ -4,7 +4,12 @@ import { HttpError } from './http-error.js';
 
 /** Validates a request body against a shared schema; on failure answers 400 with a message per field. */
 export function parseBody<S extends z.ZodType>(schema: S, req: Request): z.output<S> {
-  const result = schema.safeParse(req.body ?? {});
+  return parseInput(schema, req.body ?? {});
+}
+
+/** Validates any client input (a parsed form field, a query) like a body: 400 with a message per field. */
+export function parseInput<S extends z.ZodType>(schema: S, input: unknown): z.output<S> {
+  const result = schema.safeParse(input);
   if (result.success) return result.data;
   const fields: Record<string, string> = {};
   for (const issue of result.error.issues) {

@@ -6,8 +6,9 @@ import { projectCreateSchema } from '../../../shared/schemas/project-create.js';
 import { editorRoles, requireRole, requireUser } from '../auth/require-role.js';
 import { teamScope } from '../auth/team-scope.js';
 import { Project } from '../entities/project.js';
+import { Sweep } from '../entities/sweep.js';
 import { Team } from '../entities/team.js';
-import { notFound } from '../http/http-error.js';
+import { HttpError, notFound } from '../http/http-error.js';
 import { parseBody } from '../http/parse-body.js';
 import { parseId } from '../http/parse-id.js';
 import { withUniqueConflict } from '../http/unique-conflict.js';
@@ -68,6 +69,8 @@ export function projectsRouter(orm: MikroORM): Router {
 
   router.delete('/:id', requireRole(...editorRoles), async (req, res) => {
     const project = await loadVisibleProject(req);
+    const active = await orm.em.count(Sweep, { project, state: ['queued', 'running'] });
+    if (active > 0) throw new HttpError(409, 'conflict', `${active} sweep(s) of this project are queued or running; cancel them first.`);
     recordAudit(orm.em, req, { action: 'project.deleted', teamId: project.team.id, targetType: 'project', targetId: project.id, details: { name: project.name } });
     orm.em.remove(project);
     await orm.em.flush();
