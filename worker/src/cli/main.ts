@@ -1,7 +1,9 @@
 /**
- * The command-line tool: `npm run --silent conserva -- discover <description.json> [--json]`.
+ * The command-line tool: `npm run --silent conserva -- discover <description.json> [--json] [--model-out <file>]`
+ * and `npm run --silent conserva -- simulate <model.json> <recording.csv> [--json] [options]`.
  * Standard output carries the result only (one JSON object with --json); progress and errors go to
- * standard error. Exit 0 on success, 2 for an invalid description or recording, 1 for anything else.
+ * standard error. Exit 0 on success, 2 for invalid input (description, model, recording, options), 1 for
+ * anything else.
  */
 import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
 import { helpText } from './help-text.js';
@@ -15,34 +17,10 @@ async function main(args: string[]): Promise<number> {
     return args.length === 0 ? EXIT_INVALID_INPUT : 0;
   }
   const [command, ...rest] = args;
-  if (command !== 'discover') {
-    process.stderr.write(`Unknown command "${command}". Run conserva --help for usage.\n`);
-    return EXIT_INVALID_INPUT;
-  }
-  const json = rest.includes('--json');
-  const unknownFlags = rest.filter((a) => a.startsWith('-') && a !== '--json');
-  const files = rest.filter((a) => !a.startsWith('-'));
-  if (unknownFlags.length > 0 || files.length !== 1) {
-    process.stderr.write(
-      unknownFlags.length > 0
-        ? `Unknown option ${unknownFlags.join(', ')}. Run conserva --help for usage.\n`
-        : 'discover takes exactly one description file: conserva discover <description.json> [--json]\n',
-    );
-    return EXIT_INVALID_INPUT;
-  }
-  // Loaded step by step so that usage errors and unreadable files are answered before the math engine loads.
-  const { readDescription, readRecordings } = await import('./read-recordings.js');
-  const descriptionFile = files[0]!;
-  const description = await readDescription(descriptionFile);
-  const recordings = await readRecordings(description, descriptionFile);
-  const { discover } = await import('../../../shared/math/discover.js');
-  const { progressReporter } = await import('./progress-reporter.js');
-  const { summaryText } = await import('./summary-table.js');
-  const result = discover(description, recordings, {
-    onProgress: progressReporter((line) => process.stderr.write(`${line}\n`)),
-  });
-  process.stdout.write(json ? `${JSON.stringify(result)}\n` : `${summaryText(result)}\n`);
-  return 0;
+  if (command === 'discover') return (await import('./discover-command.js')).runDiscover(rest);
+  if (command === 'simulate') return (await import('./simulate-command.js')).runSimulate(rest);
+  process.stderr.write(`Unknown command "${command}". Run conserva --help for usage.\n`);
+  return EXIT_INVALID_INPUT;
 }
 
 main(process.argv.slice(2)).then(
