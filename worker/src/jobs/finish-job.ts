@@ -1,0 +1,52 @@
+import { LockMode } from '@mikro-orm/postgresql';
+import { prepareDiscovery } from '../../../shared/math/discovery-preparation.js';
+import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
+import { selectModels } from '../../../shared/math/model-selection.js';
+import { settingsOfSweep } from '../../../shared/sweeps/frozen-settings.js';
+import { emptyLeaderboard, leaderboardOutcome } from '../../../shared/sweeps/stored-leaderboard.js';
+import { sweepResult } from '../../../shared/sweeps/sweep-result.js';
+import { Sweep } from '../../../api/src/entities/sweep.js';
+import { notifySweepEvent } from '../../../api/src/live/sweep-events.js';
+import type { FinishJob } from '../../../api/src/queue/sweep-jobs.js';
+import { endSweep } from '../../../api/src/sweeps/sweep-end.js';
+import { loadSignalRecordings } from '../sweeps/signal-recordings.js';
+import { failSweep } from '../sweeps/sweep-failure.js';
+import type { JobContext } from './job-context.js';
+
+/**
+ * Finish (design step 5): once every shard has merged, runs the command line's finish step on the merged
+ * leaderboard (the preparation is rebuilt from the same recordings and settings, which gives the same
+ * columns), stores the result in the command line's shape and marks the sweep finished. Only a running
+ * sweep with every shard merged is finished; anything else leaves the job with nothing to do.
+ */
+export async function runFinishJob(ctx: JobContext, job: FinishJob): Promise<void> {
+  const em = ctx.orm.em.fork();
+  const sweep = await em.findOne(Sweep, { id: job.sweepId });
+  if (!sweep || sweep.state !== 'running' || sweep.shardsDone < sweep.shardCount) return;
+  const started = performance.now();
+  const settings = settingsOfSweep(sweep.description);
+  const recordings = await loadSignalRecordings(em, sweep.description);
+  let result;
+  try {
+    const prepared = prepareDiscovery(settings, recordings);
+    const outcome = leaderboardOutcome(sweep.leaderboard ?? emptyLeaderboard(), { evaluated: sweep.evaluated, rejected: sweep.rejected });
+    const selection = selectModels(prepared, settings, outcome);
+    const running = sweep.startedAt ? (Date.now() - sweep.startedAt.getTime()) / 1000 : (performance.now() - started) / 1000;
+    result = sweepResult(settings, recordings, prepared, outcome, selection, running);
+  } catch (error) {
+    if (error instanceof DiscoveryInputError) {
+      await failSweep(ctx, sweep.id, error.message);
+      return;
+    }
+    throw error;
+  }
+  await ctx.orm.em.fork().transactional(async (tx) => {
+    const locked = await tx.findOne(Sweep, { id: job.sweepId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    if (!locked || locked.state !== 'running') return;
+    locked.result = result;
+    locked.leaderboardVersion += 1;
+    await endSweep(tx, ctx.boss, locked, { state: 'finished' });
+    await notifySweepEvent(tx, { kind: 'leaderboard', sweepId: locked.id, teamId: locked.team.id, version: locked.leaderboardVersion });
+  });
+  ctx.logger.info({ sweepId: job.sweepId, best: result.best?.energy ?? null }, 'sweep finished');
+}

@@ -1,0 +1,88 @@
+import { LockMode } from '@mikro-orm/postgresql';
+import { prepareDiscovery, type PreparedDiscovery } from '../../../shared/math/discovery-preparation.js';
+import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
+import { encodeProblemData, type ProblemMeta } from '../../../shared/sweeps/problem-encoding.js';
+import { settingsOfSweep } from '../../../shared/sweeps/frozen-settings.js';
+import { planShards } from '../../../shared/sweeps/shard-plan.js';
+import { emptyLeaderboard } from '../../../shared/sweeps/stored-leaderboard.js';
+import { countSliceSubsets } from '../../../shared/math/combinations.js';
+import { Shard } from '../../../api/src/entities/shard.js';
+import { Sweep } from '../../../api/src/entities/sweep.js';
+import { notifySweepEvent } from '../../../api/src/live/sweep-events.js';
+import { sweepQueueNames, type PrepareJob } from '../../../api/src/queue/sweep-jobs.js';
+import { sendInTransaction } from '../../../api/src/queue/transactional-send.js';
+import { measuredThroughput } from '../../../api/src/sweeps/measured-throughput.js';
+import { loadSignalRecordings } from '../sweeps/signal-recordings.js';
+import { failSweep } from '../sweeps/sweep-failure.js';
+import type { JobContext } from './job-context.js';
+
+function problemMetaOf(prepared: PreparedDiscovery, referenceCoefficient: number | undefined): ProblemMeta {
+  const reference = prepared.set.reference;
+  return {
+    columnCount: prepared.problem.columnCount,
+    knownCount: prepared.problem.knownCount,
+    yty: prepared.problem.yty,
+    scales: prepared.training.columns.map((column) => Math.sqrt(column.reduce((sum, v) => sum + v * v, 0))),
+    terms: prepared.training.terms.map((term) => term.text),
+    reference: reference ? { term: reference.text, coefficient: referenceCoefficient! } : null,
+    rowCount: prepared.training.rowCount,
+    sizes: prepared.sizes,
+  };
+}
+
+/**
+ * Prepare (design step 2): signals, regression system and the scaled Gram problem from the stored
+ * recordings; stores what shards need on the sweep, cuts the rank space into shards and enqueues them, all
+ * in one transaction. A sweep that is no longer queued (cancelled, or prepared by an earlier attempt) is
+ * left alone. Input the engine refuses fails the sweep with the engine's message.
+ */
+export async function runPrepareJob(ctx: JobContext, job: PrepareJob): Promise<void> {
+  const em = ctx.orm.em.fork();
+  const sweep = await em.findOne(Sweep, { id: job.sweepId });
+  if (!sweep || sweep.state !== 'queued') return;
+  const settings = settingsOfSweep(sweep.description);
+  let prepared: PreparedDiscovery;
+  try {
+    prepared = prepareDiscovery(settings, await loadSignalRecordings(em, sweep.description));
+  } catch (error) {
+    if (error instanceof DiscoveryInputError) {
+      await failSweep(ctx, sweep.id, error.message);
+      return;
+    }
+    throw error;
+  }
+  const meta = problemMetaOf(prepared, settings.reference?.coefficient);
+  const shards = planShards(prepared.candidateCount, prepared.sizes, await measuredThroughput(em), {
+    targetSeconds: ctx.config.shardSeconds,
+    subsetsPerShard: ctx.config.shardSubsets,
+  });
+
+  await ctx.orm.em.fork().transactional(async (tx) => {
+    const locked = await tx.findOne(Sweep, { id: job.sweepId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    if (!locked || locked.state !== 'queued') return;
+    Object.assign(locked, {
+      state: 'running',
+      startedAt: new Date(),
+      problemMeta: meta,
+      problemData: Buffer.from(encodeProblemData(prepared.problem)),
+      candidateCount: prepared.candidateCount,
+      rowCount: prepared.training.rowCount,
+      totalSubsets: prepared.total,
+      excluded: prepared.excluded,
+      warnings: [...new Set([...locked.warnings, ...prepared.warnings])],
+      shardCount: shards.length,
+      leaderboard: emptyLeaderboard(),
+    });
+    const created = shards.map((slices, index) => tx.create(Shard, { sweep: locked, index, slices, subsets: countSliceSubsets(slices), state: 'queued' }));
+    await tx.flush();
+    for (const shard of created) {
+      await sendInTransaction(ctx.boss, tx, sweepQueueNames.shard, { kind: 'shard', sweepId: locked.id, shardId: shard.id }, {
+        retryLimit: ctx.config.shardRetries,
+        retryDelay: 1,
+        expireInSeconds: ctx.config.shardExpireSeconds,
+      });
+    }
+    await notifySweepEvent(tx, { kind: 'state', sweepId: locked.id, teamId: locked.team.id, state: 'running' });
+  });
+  ctx.logger.info({ sweepId: job.sweepId, shards: shards.length, subsets: prepared.total, candidates: prepared.candidateCount }, 'sweep prepared');
+}

@@ -1,0 +1,28 @@
+import os from 'node:os';
+import type { MikroORM } from '@mikro-orm/postgresql';
+import type { Logger } from 'pino';
+
+const heartbeatMs = 10_000;
+
+/**
+ * Reports this worker (name, host, pid, threads) every 10 s, so estimates know the threads at hand and
+ * admins see who is running. Returns a stop function that removes the report.
+ */
+export function startPresenceHeartbeat(orm: MikroORM, worker: { name: string; threads: number }, logger: Logger): () => Promise<void> {
+  const em = orm.em.fork();
+  const startedAt = new Date();
+  const report = () =>
+    em
+      .execute(
+        `insert into worker_presence (id, host, pid, threads, started_at, last_seen_at) values (?, ?, ?, ?, ?, now())
+         on conflict (id) do update set host = excluded.host, pid = excluded.pid, threads = excluded.threads, last_seen_at = now()`,
+        [worker.name, os.hostname(), process.pid, worker.threads, startedAt],
+      )
+      .catch((err: unknown) => logger.warn({ err }, 'could not report this worker'));
+  void report();
+  const timer = setInterval(() => void report(), heartbeatMs);
+  return async () => {
+    clearInterval(timer);
+    await em.execute('delete from worker_presence where id = ?', [worker.name]).catch(() => undefined);
+  };
+}
