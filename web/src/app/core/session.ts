@@ -12,6 +12,12 @@ export class Session {
 
   readonly user = this.current.asReadonly();
   readonly signedIn = computed(() => this.current() !== null);
+  /** Analysts and admins create and change work; viewers only read. */
+  readonly canEdit = computed(() => {
+    const role = this.current()?.role;
+    return role === 'analyst' || role === 'admin';
+  });
+  readonly isAdmin = computed(() => this.current()?.role === 'admin');
   /** Why the session could not be read when the app started, if it could not; the sign-in page shows it. */
   readonly problem = this.startProblem.asReadonly();
 

@@ -33,6 +33,7 @@ export class Shell {
   private readonly main = viewChild.required<ElementRef<HTMLElement>>('main');
 
   protected readonly user = this.session.user;
+  protected readonly isAdmin = this.session.isAdmin;
   protected readonly role = computed(() => {
     const user = this.user();
     return user ? roleLabel(user.role) : '';

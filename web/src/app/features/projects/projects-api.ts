@@ -1,5 +1,10 @@
 import { Injectable, inject } from '@angular/core';
-import { type ProjectSummary, projectListSchema } from '../../../../../shared/schemas/project';
+import {
+  type ProjectInput,
+  type ProjectSummary,
+  projectListSchema,
+  projectSummarySchema,
+} from '../../../../../shared/schemas/project';
 import { ApiClient } from '../../core/api-client';
 
 /** The projects the signed-in user may see. */
@@ -10,5 +15,13 @@ export class ProjectsApi {
   async list(): Promise<ProjectSummary[]> {
     const answer = await this.api.get('/projects', projectListSchema);
     return answer.projects;
+  }
+
+  get(projectId: string): Promise<ProjectSummary> {
+    return this.api.get(`/projects/${projectId}`, projectSummarySchema);
+  }
+
+  create(input: ProjectInput): Promise<ProjectSummary> {
+    return this.api.post('/projects', input, projectSummarySchema);
   }
 }

@@ -1,17 +1,20 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { Router, RouterLink } from '@angular/router';
 import type { ProjectSummary } from '../../../../../shared/schemas/project';
 import { toApiFailure } from '../../core/api-failure';
 import { Session } from '../../core/session';
+import { NewProjectDialog } from './new-project-dialog';
 import { ProjectCard } from './project-card';
 import { ProjectsApi } from './projects-api';
 
 /** The signed-in user's projects, most recently changed first. */
 @Component({
   selector: 'app-projects-page',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, ProjectCard],
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, ProjectCard],
   templateUrl: './projects-page.html',
   styleUrl: './projects-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -19,6 +22,9 @@ import { ProjectsApi } from './projects-api';
 export class ProjectsPage {
   private readonly projectsApi = inject(ProjectsApi);
   private readonly session = inject(Session);
+  private readonly dialog = inject(MatDialog);
+  private readonly router = inject(Router);
+  protected readonly canEdit = this.session.canEdit;
 
   /** Admins see every team's projects (the server's team scope); everyone else sees their own team's. */
   protected readonly scope = computed(() => {
@@ -37,6 +43,15 @@ export class ProjectsPage {
 
   constructor() {
     void this.load();
+  }
+
+  protected newProject(): void {
+    this.dialog
+      .open(NewProjectDialog, { autoFocus: 'first-tabbable' })
+      .afterClosed()
+      .subscribe((project: ProjectSummary | undefined) => {
+        if (project) void this.router.navigate(['/projects', project.id]);
+      });
   }
 
   protected async load(): Promise<void> {

@@ -1,0 +1,2 @@
+import type { Routes } from '@angular/router';
+export const adminRoutes: Routes = [];

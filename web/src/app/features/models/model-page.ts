@@ -1,0 +1,3 @@
+import { Component } from '@angular/core';
+@Component({ selector: 'app-stub', template: 'stub' })
+export class ModelPage {}
