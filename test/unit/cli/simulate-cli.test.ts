@@ -3,11 +3,12 @@ import { execFile } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { buildModelDocument, parseModelDocument, serializeModelDocument } from '../../../shared/model/model-document.js';
+import { parseModelDocument, serializeModelDocument } from '../../../shared/model/model-document.js';
 import { simulationResultSchema } from '../../../shared/schemas/simulation-result.js';
 import { forcesOf, pendulumTorque } from '../../support/mechanisms/forcing.js';
 import { simplePendulum } from '../../support/mechanisms/handbook-mechanisms.js';
 import { recordingToCsv, simulateRecording } from '../../support/mechanisms/simulate-recording.js';
+import { handbookModelDocument } from '../model/handbook-model.js';
 
 const root = path.resolve(import.meta.dirname, '../../..');
 
@@ -31,15 +32,7 @@ function conserva(args: string[]): Promise<Run> {
 
 // The model is the handbook pendulum (Landau & Lifshitz, Mechanics, sec. 5, problem 1 with m2 = 0); the
 // recordings are simulated from its hand-written equation of motion with our parameters.
-const handbookModel = serializeModelDocument(
-  buildModelDocument({
-    coordinates: ['th'],
-    energy: { terms: Object.keys(simplePendulum.energyTerms), coefficients: Object.values(simplePendulum.energyTerms) },
-    lagrangian: { terms: Object.keys(simplePendulum.lagrangianTerms), coefficients: Object.values(simplePendulum.lagrangianTerms) },
-    provenance: { source: 'simulate test', form: null, estimator: null, recordings: [], sweep: null, scores: null },
-    title: 'handbook pendulum',
-  }),
-);
+const handbookModel = serializeModelDocument(handbookModelDocument(simplePendulum, 'handbook pendulum'));
 
 function forcedSwing(q0: number, duration: number): string {
   const run = simulateRecording(simplePendulum, { initial: { q: [q0], dq: [0] }, duration, sampleStep: 0.01, forces: forcesOf(pendulumTorque) });

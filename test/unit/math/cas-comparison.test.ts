@@ -2,8 +2,8 @@ import { expect } from 'chai';
 import { spawnSync } from 'node:child_process';
 import { deriveEquationsOfMotion, type LagrangianTerm } from '../../../shared/math/euler-lagrange.js';
 import { compileModelDynamics } from '../../../shared/math/model-dynamics.js';
-import { createSeededRandom } from '../../../shared/math/seeded-random.js';
 import { sphericalPendulum } from '../../support/mechanisms/handbook-mechanisms.js';
+import { randomStates, type State } from './random-states.js';
 
 /*
  * Our symbolic Euler-Lagrange against a general-purpose computer algebra system: Debian's python3-sympy, run
@@ -59,12 +59,6 @@ for state in data["states"]:
 json.dump(out, sys.stdout)
 `;
 
-interface State {
-  q: number[];
-  dq: number[];
-  u: number[];
-}
-
 function requireSympy(): void {
   const probe = spawnSync(PYTHON, ['-c', 'import sympy'], { encoding: 'utf8' });
   if (probe.status !== 0) {
@@ -84,16 +78,6 @@ function sympyEquations(coordinates: string[], lagrangian: LagrangianTerm[], sta
   const run = spawnSync(PYTHON, ['-c', sympyScript], { input, encoding: 'utf8', timeout: 120_000 });
   if (run.status !== 0) throw new Error(`SymPy failed: ${run.stderr}`);
   return JSON.parse(run.stdout) as { M: number[][]; f: number[] }[];
-}
-
-function sampleStates(n: number, count: number, seed: number, firstRange: [number, number]): State[] {
-  const random = createSeededRandom(seed);
-  const between = (a: number, b: number) => a + (b - a) * random();
-  return Array.from({ length: count }, () => ({
-    q: Array.from({ length: n }, (_, i) => (i === 0 ? between(...firstRange) : between(-2, 2))),
-    dq: Array.from({ length: n }, () => between(-3, 3)),
-    u: Array.from({ length: n }, () => between(-1, 1)),
-  }));
 }
 
 function expectSameEquations(coordinates: string[], lagrangian: LagrangianTerm[], states: State[]): void {
@@ -119,7 +103,7 @@ describe('equations of motion against a computer algebra system (Debian python3-
 
   it('gives SymPy\'s mass matrix and force vector for the spherical pendulum (Goldstein) on 25 states', () => {
     const lagrangian = Object.entries(sphericalPendulum.lagrangianTerms).map(([term, coefficient]) => ({ term, coefficient }));
-    expectSameEquations(sphericalPendulum.coordinates, lagrangian, sampleStates(2, 25, 21, [0.3, 2.8]));
+    expectSameEquations(sphericalPendulum.coordinates, lagrangian, randomStates(2, 25, 21, { first: [0.3, 2.8] }));
   });
 
   it('gives SymPy\'s for a Lagrangian of our own with coupled, velocity-dependent and degree-one terms on 25 states', () => {
@@ -136,6 +120,6 @@ describe('equations of motion against a computer algebra system (Debian python3-
       { term: 'sin(th - x)', coefficient: 2.2 },
       { term: 'dx^2/(2 + cos(th))', coefficient: 0.3 },
     ];
-    expectSameEquations(['x', 'th'], lagrangian, sampleStates(2, 25, 22, [-2, 2]));
+    expectSameEquations(['x', 'th'], lagrangian, randomStates(2, 25, 22));
   });
 });

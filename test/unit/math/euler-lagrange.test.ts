@@ -3,9 +3,9 @@ import { all, create } from 'mathjs';
 import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
 import { deriveEquationsOfMotion, type EquationsOfMotion } from '../../../shared/math/euler-lagrange.js';
 import { compileModelDynamics } from '../../../shared/math/model-dynamics.js';
-import { createSeededRandom } from '../../../shared/math/seeded-random.js';
 import { cartPole, doublePendulum, simplePendulum, sphericalPendulum } from '../../support/mechanisms/handbook-mechanisms.js';
 import type { Mechanism } from '../../support/mechanisms/mechanism.js';
+import { randomStates, type State } from './random-states.js';
 
 // A general-purpose library (mathjs, not our compiler) evaluates the printed equations in the printing check.
 const math = create(all, { number: 'number' });
@@ -15,21 +15,9 @@ function equationsOf(mechanism: Mechanism): EquationsOfMotion {
   return deriveEquationsOfMotion(mechanism.coordinates, terms);
 }
 
-interface State {
-  q: number[];
-  dq: number[];
-  u: number[];
-}
-
-/** Random states and forces in a box; `q0Range` keeps the spherical pendulum off its coordinate pole. */
-function sampleStates(n: number, count: number, seed: number, q0Range: [number, number] = [-3, 3]): State[] {
-  const random = createSeededRandom(seed);
-  const between = (a: number, b: number) => a + (b - a) * random();
-  return Array.from({ length: count }, () => ({
-    q: Array.from({ length: n }, (_, i) => (i === 0 ? between(...q0Range) : between(-3, 3))),
-    dq: Array.from({ length: n }, () => between(-5, 5)),
-    u: Array.from({ length: n }, () => between(-2, 2)),
-  }));
+/** Random states in a box; `first` keeps the spherical pendulum off its coordinate pole. */
+function sampleStates(n: number, count: number, seed: number, first: [number, number] = [-3, 3]): State[] {
+  return randomStates(n, count, seed, { first, q: 3, dq: 5, u: 2 });
 }
 
 function relativeDifference(a: number, b: number): number {

@@ -6,7 +6,6 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { compileModelDynamics } from '../../../shared/math/model-dynamics.js';
-import { createSeededRandom } from '../../../shared/math/seeded-random.js';
 import { exportC } from '../../../shared/model/export-c.js';
 import { exportLatex, modelLatex } from '../../../shared/model/export-latex.js';
 import { exportPython } from '../../../shared/model/export-python.js';
@@ -15,7 +14,8 @@ import { buildModelDocument, documentEquations } from '../../../shared/model/mod
 import { safetyCaution } from '../../../shared/model/safety-caution.js';
 import type { ModelDocument } from '../../../shared/schemas/model-document.js';
 import { doublePendulum, sphericalPendulum } from '../../support/mechanisms/handbook-mechanisms.js';
-import type { Mechanism } from '../../support/mechanisms/mechanism.js';
+import { randomStates, type State } from '../math/random-states.js';
+import { handbookModelDocument } from './handbook-model.js';
 
 /*
  * The exported code is checked by running it outside the product: the C export compiled by the system compiler
@@ -26,16 +26,6 @@ import type { Mechanism } from '../../support/mechanisms/mechanism.js';
 const root = path.resolve(import.meta.dirname, '../../..');
 const PYTHON = '/usr/bin/python3';
 const provenance = { source: 'exports test', form: null, estimator: null, recordings: [], sweep: null, scores: null };
-
-function handbookDocument(mechanism: Mechanism): ModelDocument {
-  return buildModelDocument({
-    coordinates: mechanism.coordinates,
-    energy: { terms: Object.keys(mechanism.energyTerms), coefficients: Object.values(mechanism.energyTerms) },
-    lagrangian: { terms: Object.keys(mechanism.lagrangianTerms), coefficients: Object.values(mechanism.lagrangianTerms) },
-    provenance,
-    title: `${mechanism.name} (${mechanism.source})`,
-  });
-}
 
 /** Our own coupled Lagrangian with every kind of expression the code generator meets: powers, quotients, sums in sin. */
 const coupledDocument = buildModelDocument({
@@ -50,26 +40,10 @@ const coupledDocument = buildModelDocument({
 });
 
 const documents: { name: string; document: ModelDocument; firstRange: [number, number] }[] = [
-  { name: 'double pendulum', document: handbookDocument(doublePendulum), firstRange: [-3, 3] },
-  { name: 'spherical pendulum', document: handbookDocument(sphericalPendulum), firstRange: [0.3, 2.8] },
+  { name: 'double pendulum', document: handbookModelDocument(doublePendulum, `${doublePendulum.name} (${doublePendulum.source})`), firstRange: [-3, 3] },
+  { name: 'spherical pendulum', document: handbookModelDocument(sphericalPendulum), firstRange: [0.3, 2.8] },
   { name: 'coupled model', document: coupledDocument, firstRange: [-1.5, 1.5] },
 ];
-
-interface State {
-  q: number[];
-  dq: number[];
-  u: number[];
-}
-
-function sampleStates(n: number, count: number, seed: number, firstRange: [number, number]): State[] {
-  const random = createSeededRandom(seed);
-  const between = (a: number, b: number) => a + (b - a) * random();
-  return Array.from({ length: count }, () => ({
-    q: Array.from({ length: n }, (_, i) => (i === 0 ? between(...firstRange) : between(-2, 2))),
-    dq: Array.from({ length: n }, () => between(-3, 3)),
-    u: Array.from({ length: n }, () => between(-1, 1)),
-  }));
-}
 
 /** The product's accelerations (null where it calls the mass matrix singular). */
 function ourAccelerations(document: ModelDocument, states: State[]): (number[] | null)[] {
@@ -147,7 +121,7 @@ describe('exports of a model', function () {
   // A state on the spherical pendulum's coordinate pole (th = 0), where its mass matrix is singular.
   const singular: State = { q: [0, 0.3], dq: [0.5, 0.2], u: [0.1, 0.1] };
   const statesOf = (d: (typeof documents)[number], seed: number) => {
-    const states = sampleStates(d.document.coordinates.length, 40, seed, d.firstRange);
+    const states = randomStates(d.document.coordinates.length, 40, seed, { first: d.firstRange });
     return d.name === 'spherical pendulum' ? [...states, singular] : states;
   };
 
@@ -228,7 +202,7 @@ describe('exports of a model', function () {
     }
 
     it('writes the Landau & Lifshitz double pendulum with dotted angles, every digit of the coefficients, and the caution', () => {
-      const document = handbookDocument(doublePendulum);
+      const document = handbookModelDocument(doublePendulum);
       const latex = modelLatex(document);
       expect(latex.lagrangian).to.contain('\\dot{\\theta}_{1}^{2}').and.to.contain('\\cos\\left(\\theta_{1} - \\theta_{2}\\right)');
       expect(latex.lagrangian).to.contain(String(doublePendulum.lagrangianTerms['dth1*dth2*cos(th1 - th2)']));
@@ -248,7 +222,7 @@ describe('exports of a model', function () {
   });
 
   it('every code export names the energy and the Lagrangian in its header', () => {
-    const document = handbookDocument(doublePendulum);
+    const document = handbookModelDocument(doublePendulum);
     for (const text of [exportC(document), exportTypeScript(document), exportPython(document)]) {
       expect(text).to.contain(`L = ${document.lagrangian.expression}`).and.to.contain(`E = ${document.energy.expression}`);
     }

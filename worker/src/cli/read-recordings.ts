@@ -36,7 +36,8 @@ export async function readRecordings(description: SweepDescription, descriptionF
   return recordings;
 }
 
-async function readText(file: string, what: string): Promise<string> {
+/** Reads a text file; a missing or unreadable file becomes a DiscoveryInputError naming it and what it is. */
+export async function readText(file: string, what: string): Promise<string> {
   try {
     return await readFile(file, 'utf8');
   } catch (error) {

@@ -1,4 +1,3 @@
-import { readFile } from 'node:fs/promises';
 import path from 'node:path';
 import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
 import { parseCommandArguments } from './command-arguments.js';
@@ -22,6 +21,7 @@ export async function runSimulate(args: readonly string[]): Promise<number> {
     throw new DiscoveryInputError(`--forces must be cubic, linear or hold (got "${forces}").`);
   }
   const [modelFile, recordingFile] = parsed.positionals as [string, string];
+  const { readText } = await import('./read-recordings.js');
   const modelText = await readText(modelFile, 'model document');
   const csvText = await readText(recordingFile, 'recording');
 
@@ -79,14 +79,4 @@ function wholeNumber(text: string, option: string): number {
   const value = Number(text);
   if (!Number.isInteger(value) || value < 2) throw new DiscoveryInputError(`${option} must be a whole number of at least 2 (got "${text}").`);
   return value;
-}
-
-async function readText(file: string, what: string): Promise<string> {
-  try {
-    return await readFile(file, 'utf8');
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : (error as Error).message;
-    throw new DiscoveryInputError(`Cannot read the ${what} ${file}: ${reason}.`);
-  }
 }
