@@ -49,11 +49,10 @@ export interface ModelSimulation {
 
 /**
  * Simulates a model's equations of motion over a recording: from the recording's state at its first valid
- * sample (`states`, whose velocities may be estimated), driven by the recording's generalized forces
- * read between samples as `forceInterpolation` says (zero on coordinates without forces, and for passive
- * recordings),
- * with the adaptive Dormand-Prince integrator (integrator.ts), its steps no longer than the sampling interval
- * so that no change of the forces is stepped over. States at the sample times come from the dense output.
+ * sample (`states`, whose velocities may be estimated), driven by the recording's generalized forces read
+ * between samples as `forceInterpolation` says (zero on coordinates without forces, and for passive
+ * recordings), with the adaptive Dormand-Prince integrator (integrator.ts), its steps no longer than the
+ * sampling interval so that no change of the forces is stepped over. States at the sample times come from the dense output.
  * Where the mass matrix turns singular the run stops and reports the time reached; so it does when the motion
  * stops being finite or needs too many steps. Pure: the recording is not changed.
  */
@@ -66,6 +65,9 @@ export function simulateModel(
   const n = dynamics.n;
   const start = states.start;
   const outputTimes = recording.time.subarray(start);
+  if (outputTimes.length < 2) {
+    throw new RangeError(`simulateModel: ${recording.name} has fewer than two samples after its first valid state`);
+  }
   const t0 = outputTimes[0]!;
   const tEnd = outputTimes[outputTimes.length - 1]!;
   const initial = [...states.q.map((q) => q[0]!), ...states.dq.map((dq) => dq[0]!)];
@@ -107,9 +109,6 @@ export function simulateModel(
       },
     });
 
-  if (outputTimes.length < 2) {
-    throw new RangeError(`simulateModel: ${recording.name} has fewer than two samples after its first valid state`);
-  }
   try {
     return { ...outputsOf(integrateTo(tEnd, outputTimes), start, outputTimes, n), status: 'finished', message: null, stoppedAt: null };
   } catch (error) {
@@ -136,8 +135,9 @@ export function simulateModel(
     try {
       return outputsOf(integrateTo(reached, times), start, times, n);
     } catch (error) {
-      if (error instanceof IntegrationError && error.t < reached) return rerunUpTo(error.t);
-      throw error;
+      if (!(error instanceof IntegrationError)) throw error;
+      // Ending exactly at the time reached can still fail there: end at the sample before it instead.
+      return rerunUpTo(error.t < reached ? error.t : count >= 2 ? times[count - 2]! : t0);
     }
   }
 }
