@@ -1,6 +1,7 @@
 import './auth/express-augment.js';
 import { RequestContext, type MikroORM } from '@mikro-orm/postgresql';
 import connectPgSimple from 'connect-pg-simple';
+import type { Server } from 'node:http';
 import express, { Router, type Express, type RequestHandler } from 'express';
 import session from 'express-session';
 import pg from 'pg';
@@ -22,6 +23,7 @@ import { candidateSetsRouter, projectCandidateSetsRouter } from './routes/candid
 import { projectRecordingsRouter, recordingsRouter } from './routes/recordings.js';
 import { projectSweepsRouter, sweepsRouter } from './routes/sweeps.js';
 import { QueueClient } from './queue/queue-client.js';
+import { LiveHub } from './live/live-hub.js';
 import { healthRouter } from './routes/health.js';
 import { projectsRouter } from './routes/projects.js';
 import { sessionRouter } from './routes/session.js';
@@ -43,6 +45,10 @@ export type AppConfig = Pick<
 
 export interface ConservaApp {
   app: Express;
+  /** Serves the live view (/ws) on the HTTP server the app runs on. */
+  attachLive(server: Server): void;
+  /** Closes the live sockets (they would keep the HTTP server from closing). */
+  closeLive(): Promise<void>;
   /** The session middleware, for the WebSocket upgrade to read the same sessions. */
   sessionMiddleware: RequestHandler;
   /** Releases what the app holds besides the ORM (the session store's pool). */
@@ -71,6 +77,7 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
   const sessionMiddleware = createSessionMiddleware(config, sessionPool);
   const passport = createPassport(orm);
   const queue = new QueueClient(config.databaseUrl, logger);
+  const live = new LiveHub(orm, sessionMiddleware, config.databaseUrl, logger);
 
   const app = express();
   app.set('trust proxy', config.trustProxy);
@@ -85,7 +92,7 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(requireCsrfToken);
-  api.use('/session', sessionRouter(orm, passport, { limit: config.loginLimit, windowMs: config.loginWindowMs }));
+  api.use('/session', sessionRouter(orm, passport, { limit: config.loginLimit, windowMs: config.loginWindowMs }, (userId) => live.closeUser(userId)));
   api.use('/projects/:projectId/recordings', projectRecordingsRouter(orm, config.uploadLimitBytes));
   api.use('/projects/:projectId/candidate-sets', projectCandidateSetsRouter(orm));
   api.use('/projects/:projectId/sweeps', projectSweepsRouter(orm, queue, { allowanceDefaults: config.allowanceDefaults }));
@@ -96,7 +103,7 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
   api.use('/allowance', ownAllowanceRouter(orm, config.allowanceDefaults));
   api.use('/admin', requireRole('admin'));
   api.use('/admin/teams', adminTeamsRouter(orm));
-  api.use('/admin/users', adminUsersRouter(orm));
+  api.use('/admin/users', adminUsersRouter(orm, (userId) => live.closeUser(userId, 'account changed')));
   api.use('/admin/audit-events', adminAuditEventsRouter(orm));
   api.use('/admin/allowances', adminAllowancesRouter(orm, config.allowanceDefaults));
   api.use('/admin/mailbox', adminMailboxRouter(orm));
@@ -111,7 +118,10 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
   return {
     app,
     sessionMiddleware,
+    attachLive: (server) => live.attach(server),
+    closeLive: () => live.close(),
     async close() {
+      await live.close();
       await queue.close();
       await sessionPool.end();
     },

@@ -19,12 +19,14 @@ if (pending.length) {
 
 const conserva = createApp(orm, config, logger);
 const server = createServer(conserva.app);
+conserva.attachLive(server);
 
 let stopping = false;
 async function stop(signal: string): Promise<void> {
   if (stopping) return;
   stopping = true;
   logger.info({ signal }, 'stopping');
+  await conserva.closeLive();
   const forced = setTimeout(() => server.closeAllConnections(), 5000).unref();
   await new Promise<void>((resolve) => server.close(() => resolve()));
   clearTimeout(forced);

@@ -18,7 +18,7 @@ import {
   createProject,
   uploadRecording,
 } from '../support/sweep-scenario.js';
-import { startTestApp, type TestApp } from '../support/test-app.js';
+import { generousAllowance, startTestApp, type TestApp } from '../support/test-app.js';
 import { eventually, startTestWorker, type TestWorker } from '../support/worker-processes.js';
 import { expectSameTerms } from '../unit/discovery/recovery-harness.js';
 
@@ -43,7 +43,7 @@ describe('a sweep launched through the API agrees with the command line', () => 
   let folder: string;
 
   before(async () => {
-    app = await startTestApp();
+    app = await startTestApp({ allowanceDefaults: generousAllowance });
     folder = mkdtempSync(path.join(tmpdir(), 'conserva-parity-'));
   });
   after(async () => {

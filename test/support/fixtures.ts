@@ -66,7 +66,7 @@ export class TestAgent {
 
   constructor(readonly baseUrl: string) {}
 
-  private cookieHeader(): string {
+  cookieHeader(): string {
     return [...this.cookies].map(([name, value]) => `${name}=${value}`).join('; ');
   }
 

@@ -3,6 +3,7 @@ import type { CandidateSetInputRaw, CandidateSetView } from '../../shared/schema
 import { projectSummarySchema } from '../../shared/schemas/project.js';
 import { recordingSchema, type RecordingMappingInput, type RecordingView } from '../../shared/schemas/recording.js';
 import { candidateSetSchema } from '../../shared/schemas/candidate-set.js';
+import { sweepDetailSchema, type SweepDetail, type SweepLaunchInput, type SweepRunSettingsInput } from '../../shared/schemas/sweep.js';
 import type { TestAgent } from './fixtures.js';
 import { cartForce, onFirstCoordinate } from './mechanisms/forcing.js';
 import { cartPole } from './mechanisms/handbook-mechanisms.js';
@@ -88,4 +89,51 @@ export async function createGeneratedCandidateSet(
   const response = await agent.post(`/api/projects/${projectId}/candidate-sets`, body);
   expect(response.status, await response.clone().text()).to.equal(201);
   return candidateSetSchema.parse(await response.json());
+}
+
+/** Settings of the recovery test (savitzky-golay 9/6, balance form), with the largest size to sweep. */
+export function cartPoleSettings(maxSize: number): SweepRunSettingsInput {
+  return { sizes: { min: 1, max: maxSize }, form: 'balance', derivatives: { method: 'savitzky-golay', window: 9, order: 6 }, top: 5 };
+}
+
+export interface CartPoleProject {
+  projectId: string;
+  recordings: RecordingView[];
+  candidateSet: CandidateSetView;
+  /** A launch body over the three training recordings. */
+  launch(maxSize: number, name?: string): SweepLaunchInput;
+}
+
+/**
+ * A project with the three forced training recordings and the 58-term candidate set. Sizes up to 7 make
+ * 346,188,399 subsets (sum of C(58, s) for s = 1..7; Knuth, TAOCP 4A, 7.2.1.3): some seconds of work, so
+ * progress, cancel and crashes can be watched while shards run.
+ */
+export async function setUpCartPoleProject(agent: TestAgent, name: string): Promise<CartPoleProject> {
+  const projectId = await createProject(agent, name);
+  const recordings: RecordingView[] = [];
+  for (const [i, run] of cartPoleTrainingRuns.entries()) recordings.push(await uploadRecording(agent, projectId, cartPoleCsv(run), `run-${i + 1}.csv`));
+  const candidateSet = await createGeneratedCandidateSet(agent, projectId, 'Generated, velocity degree 3', cartPoleGenerator({ velocityDegree: 3 }));
+  return {
+    projectId,
+    recordings,
+    candidateSet,
+    launch: (maxSize, sweepName) => ({
+      ...(sweepName ? { name: sweepName } : {}),
+      candidateSetId: candidateSet.id,
+      trainingRecordingIds: recordings.map((r) => r.id),
+      settings: cartPoleSettings(maxSize),
+    }),
+  };
+}
+
+/** Launches and returns the sweep, failing loudly on any refusal. */
+export async function launchSweep(agent: TestAgent, projectId: string, body: SweepLaunchInput): Promise<SweepDetail> {
+  const response = await agent.post(`/api/projects/${projectId}/sweeps`, body);
+  expect(response.status, await response.clone().text()).to.equal(201);
+  return sweepDetailSchema.parse(await response.json());
+}
+
+export async function readSweep(agent: TestAgent, sweepId: string): Promise<SweepDetail> {
+  return sweepDetailSchema.parse(await (await agent.get(`/api/sweeps/${sweepId}`)).json());
 }

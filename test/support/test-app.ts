@@ -23,6 +23,9 @@ export interface TestAppOptions {
   allowanceDefaults?: AllowanceLimits;
 }
 
+/** Limits far above what any test sweep needs, for tests that are not about allowances. */
+export const generousAllowance: AllowanceLimits = { cpuSecondsPerMonth: 10_000_000, sweepsAtOnce: 50, subsetsPerSweep: 1e12 };
+
 export interface TestApp {
   baseUrl: string;
   orm: MikroORM;
@@ -48,12 +51,14 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
   const logger = createLogger(options.logLevel ?? process.env.CONSERVA_TEST_LOG_LEVEL ?? 'silent', 'api-test');
   const conserva = createApp(orm, config, logger);
   const server = createServer(conserva.app);
+  conserva.attachLive(server);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const { port } = server.address() as AddressInfo;
   return {
     baseUrl: `http://127.0.0.1:${port}`,
     orm,
     async close() {
+      await conserva.closeLive();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await conserva.close();

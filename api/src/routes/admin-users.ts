@@ -15,7 +15,7 @@ import { recordAudit } from '../services/audit-trail.js';
 const duplicateEmail = 'An account with that e-mail exists.';
 
 /** /api/admin/users: admins list users, create them, change name, role, team or password, and delete them. */
-export function adminUsersRouter(orm: MikroORM): Router {
+export function adminUsersRouter(orm: MikroORM, onAccountChanged: (userId: string) => void = () => undefined): Router {
   const router = Router();
 
   async function loadTeam(id: string): Promise<Team> {
@@ -75,6 +75,7 @@ export function adminUsersRouter(orm: MikroORM): Router {
       details: { email: user.email, changed: input.password === undefined ? changed : [...changed, 'password'], role: user.role },
     });
     await orm.em.flush();
+    if (input.role !== undefined || input.teamId !== undefined || input.password !== undefined) onAccountChanged(user.id);
     res.json(toAdminUser(user));
   });
 
@@ -84,6 +85,7 @@ export function adminUsersRouter(orm: MikroORM): Router {
     recordAudit(orm.em, req, { action: 'user.deleted', teamId: user.team.id, targetType: 'user', targetId: user.id, details: { email: user.email } });
     orm.em.remove(user);
     await orm.em.flush();
+    onAccountChanged(user.id);
     res.status(204).end();
   });
 

@@ -20,7 +20,7 @@ function authenticateLocal(passport: PassportInstance, req: Request, res: Respon
 }
 
 /** /api/session: who is signed in, sign-in and sign-out. */
-export function sessionRouter(orm: MikroORM, passport: PassportInstance, limits: SignInLimits): Router {
+export function sessionRouter(orm: MikroORM, passport: PassportInstance, limits: SignInLimits, onSignOut: (userId: string) => void = () => undefined): Router {
   const router = Router();
 
   router.get('/', (req, res) => {
@@ -51,7 +51,10 @@ export function sessionRouter(orm: MikroORM, passport: PassportInstance, limits:
       recordAudit(orm.em, req, { action: 'session.signed_out', teamId: req.user.teamId, targetType: 'user', targetId: req.user.id });
       await orm.em.flush();
     }
+    const userId = req.user?.id;
     await promisify(req.logout.bind(req))();
+    // An open live socket outlives the session it was opened with: close it with the session.
+    if (userId) onSignOut(userId);
     issueCsrfToken(req, res);
     res.status(204).end();
   });

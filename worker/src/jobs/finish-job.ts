@@ -45,8 +45,9 @@ export async function runFinishJob(ctx: JobContext, job: FinishJob): Promise<voi
     if (!locked || locked.state !== 'running') return;
     locked.result = result;
     locked.leaderboardVersion += 1;
-    await endSweep(tx, ctx.boss, locked, { state: 'finished' });
+    // Both events are delivered at commit, in this order: the result, then the end.
     await notifySweepEvent(tx, { kind: 'leaderboard', sweepId: locked.id, teamId: locked.team.id, version: locked.leaderboardVersion });
+    await endSweep(tx, ctx.boss, locked, { state: 'finished' });
   });
   ctx.logger.info({ sweepId: job.sweepId, best: result.best?.energy ?? null }, 'sweep finished');
 }
