@@ -10,9 +10,9 @@ import {
   type RankingCriterion,
   type RankingRule,
 } from './model-choice.js';
-import { dropNegligibleTerms, NEGLIGIBLE_ENERGY_CHANGE, type Simplification } from './negligible-terms.js';
 import { energyOnSamples } from './energy-on-samples.js';
 import { kineticDegeneracy, type KineticDegeneracy } from './kinetic-degeneracy.js';
+import { dropNegligibleTerms, NEGLIGIBLE_ENERGY_CHANGE, type Simplification } from './negligible-terms.js';
 import { NOISE_FLOOR_FACTOR, noiseFloorRmse } from './noise-floor.js';
 import { createNormalRandom, createSeededRandom } from './seeded-random.js';
 import type { RankedSubset, SweepOutcome } from './sweep-problem.js';
@@ -25,7 +25,7 @@ export interface ModelSelection {
   ranked: WorkedModel[];
   front: SizeFrontEntry[];
   rule: RankingRule;
-  /** The best-scoring model's terms and the negligible terms left out of it, when any were. */
+  /** The first-ranked model's terms and the negligible terms left out of it, when any were. */
   simplification: { from: string[]; dropped: Simplification['dropped']; tolerance: number } | null;
   warnings: string[];
 }
@@ -33,7 +33,9 @@ export interface ModelSelection {
 /**
  * The finish step (design: "finish"): re-fits the leaderboard, measures each size's best model against its
  * noise floor (the front of error against size), stops growth at the floor when ranking by BIC, ranks the
- * models (model-choice.ts) and warns when the data do not decide.
+ * models (model-choice.ts), leaves negligible terms out of the first one (negligible-terms.ts), and warns when
+ * the data do not decide (model-choice.ts) or the chosen energy cannot drive every coordinate
+ * (kinetic-degeneracy.ts).
  */
 export function selectModels(prepared: PreparedDiscovery, settings: SweepSettings, outcome: SweepOutcome): ModelSelection {
   const warnings: string[] = [];
@@ -85,7 +87,7 @@ export function selectModels(prepared: PreparedDiscovery, settings: SweepSetting
 
 /**
  * Drops the negligible terms of the first-ranked model (negligible-terms.ts) and puts the simplified model
- * first; the model it came from keeps its place after it, so the leaderboard still shows what scored best.
+ * first; the model it came from follows it, so the leaderboard still shows what the ranking chose.
  */
 function simplifyChosen(
   ranked: WorkedModel[],
@@ -109,10 +111,10 @@ function simplificationWarning(simplification: NonNullable<ModelSelection['simpl
     (d) => `${d.term} (coefficient ${d.coefficient.toPrecision(3)}; energy change ${d.energyChange.toExponential(1)})`,
   );
   return (
-    `The best-scoring model (${simplification.from.join(', ')}) was simplified by leaving out ${dropped.join(', ')}: ` +
-    `without ${dropped.length > 1 ? 'them' : 'it'} the energy changes by less than ${simplification.tolerance} of its variation ` +
-    'on the training samples, too little to matter; such a term fits the error of the estimated signals rather than ' +
-    'the motion. The simpler model ranks first, the best-scoring one after it.'
+    `The first-ranked model (${simplification.from.join(', ')}) was simplified by leaving out ${dropped.join(', ')}: ` +
+    `without ${dropped.length > 1 ? 'them' : 'it'} the energy changes by less than ${simplification.tolerance} of its ` +
+    'variation on the training samples, too little to matter; such a term fits the error of the estimated signals ' +
+    'rather than the motion. The simpler model ranks first, the one it came from second.'
   );
 }
 
@@ -120,7 +122,8 @@ function degeneracyWarning(degeneracy: KineticDegeneracy, velocities: readonly s
   const component = (v: number) => (Math.abs(v) < 5e-3 ? '0' : Math.abs(v - 1) < 5e-3 ? '1' : v.toFixed(2));
   const where = `on ${(100 * degeneracy.share).toFixed(0)} % of the training samples`;
   const what = degeneracy.everyDirection
-    ? `The chosen energy has next to no kinetic part ${where} (below ${NEGLIGIBLE_ENERGY_CHANGE} of the energy's variation for velocities of the recorded size), so its Lagrangian cannot say how the mechanism moves.`
+    ? `The chosen energy has next to no kinetic part ${where} (below ${NEGLIGIBLE_ENERGY_CHANGE} of the energy's ` +
+      'variation for velocities of the recorded size), so its Lagrangian cannot say how the mechanism moves.'
     : `The chosen energy hardly changes with the velocities along ${velocities.join(' : ')} = ` +
       `${degeneracy.direction.map(component).join(' : ')} ${where} (its kinetic part there is below ` +
       `${NEGLIGIBLE_ENERGY_CHANGE} of the energy's variation, or negative), so its Lagrangian cannot say how the ` +

@@ -14,7 +14,10 @@ export interface DroppedTerm {
   term: string;
   /** Its energy coefficient in the model it was dropped from. */
   coefficient: number;
-  /** rms change of the energy, relative to its variation, between the best-scoring model and the one without this term. */
+  /**
+   * rms change of the energy, relative to its variation, from the first-ranked model to the one without this
+   * term (and any dropped before it).
+   */
   energyChange: number;
 }
 

@@ -43,7 +43,7 @@ export const sizeFrontEntrySchema = z.object({
 });
 export type SizeFrontEntry = z.infer<typeof sizeFrontEntrySchema>;
 
-/** A term left out of the best-scoring model because it changes the energy negligibly (shared/math/negligible-terms.ts). */
+/** A term left out of the first-ranked model because it changes the energy negligibly (shared/math/negligible-terms.ts). */
 export const droppedTermSchema = z.object({
   term: z.string(),
   /** Its coefficient in the model it was dropped from. */
@@ -53,7 +53,7 @@ export const droppedTermSchema = z.object({
 });
 
 export const simplificationSchema = z.object({
-  /** Terms of the best-scoring model before its negligible terms were left out. */
+  /** Terms of the first-ranked model before its negligible terms were left out. */
   from: z.array(z.string()),
   dropped: z.array(droppedTermSchema),
   /** Energy changes below this are negligible. */
@@ -92,7 +92,7 @@ export const discoveryResultSchema = z.object({
   rankingTolerance: z.number(),
   models: z.array(discoveredModelSchema),
   /**
-   * When the best-scoring model carried terms that change its energy negligibly: which, and from what model.
+   * When the first-ranked model carried terms that change its energy negligibly: which, and from what model.
    * The first model is then the model without them. Null when nothing was dropped; absent in results stored
    * before the rule existed.
    */

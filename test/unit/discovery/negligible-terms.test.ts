@@ -13,7 +13,9 @@ const { m, l, g } = simplePendulum.parameters as Record<'m' | 'l' | 'g', number>
 // with the default Savitzky-Golay estimator (window 9, order 4); dth^2 known and five other candidates.
 const exampleTerms = ['dth^2', 'cos(th)', 'sin(th)', 'th^2', 'dth^2*cos(th)', 'cos(2*th)'];
 
-function forcedPendulum(startAngle: number, derivatives: { method: 'central' } | { method: 'savitzky-golay'; window: number; order: number }) {
+type Estimator = { method: 'central' } | { method: 'savitzky-golay'; window: number; order: number };
+
+function forcedPendulum(startAngle: number, derivatives: Estimator) {
   return runRecovery({
     mechanism: simplePendulum,
     runs: [{ q: [startAngle], dq: [0], role: 'train' }],
@@ -55,7 +57,8 @@ function springShare(): number {
   const spring: number[] = [];
   const total: number[] = [];
   for (const run of springRuns.filter((r) => r.role === 'train')) {
-    const recording = simulateRecording(springPendulum, { initial: run, duration: 4, sampleStep: 0.01, forces: forcesOf(pendulumTorque) });
+    const options = { initial: run, duration: 4, sampleStep: 0.01, forces: forcesOf(pendulumTorque) };
+    const recording = simulateRecording(springPendulum, options);
     recording.qExact[0]!.forEach((th, i) => {
       spring.push(0.5 * k * th * th);
       total.push(springPendulum.energy([th], [recording.dq[0]![i]!]));
@@ -73,7 +76,7 @@ describe('negligible terms: a term that changes the energy by less than 1e-4 of 
     ['Savitzky-Golay window 9, order 4', 0.3, { method: 'savitzky-golay', window: 9, order: 4 }],
     ['central differences', 0.8, { method: 'central' }],
   ] as const) {
-    it(`forced pendulum, one recording, ranked by BIC (${label}): exactly dth^2 + cos(th), the BIC winner's extra term dropped`, () => {
+    it(`forced pendulum, one recording, ranked by BIC (${label}): exactly dth^2 + cos(th), the extra term dropped`, () => {
       const result = forcedPendulum(startAngle, derivatives);
       expectHandbookModel(result, simplePendulum);
       const simplification = result.simplification;
@@ -98,7 +101,13 @@ describe('negligible terms: a term that changes the energy by less than 1e-4 of 
         duration: 4,
         sampleStep: 0.01,
         forces: forcesOf(pendulumTorque),
-        settings: { generate: {}, sizes: { min: 0, max: 4 }, form, derivatives: { method: 'savitzky-golay', window: 9, order: 6 }, top: 5 },
+        settings: {
+          generate: {},
+          sizes: { min: 0, max: 4 },
+          form,
+          derivatives: { method: 'savitzky-golay', window: 9, order: 6 },
+          top: 5,
+        },
       });
       expectHandbookModel(result, springPendulum);
     }

@@ -77,7 +77,7 @@ describe('recovery: cart with a pole (control textbooks\' cart-pole, th from upr
       expect(result.warnings.join(' ')).not.to.contain('do not decide');
     });
 
-    it(`with p^2 among the candidates, returns E - p^2/(2(M+m)) and says the data do not decide how dx moves, ${form} form`, () => {
+    it(`with p^2 among the candidates, returns E - p^2/(2(M+m)) and says the data cannot tell how dx moves, ${form} form`, () => {
       const result = runRecovery(passive(form, generated));
       // E - p^2/(2(M+m)) = (m l^2/2 - m^2 l^2/(2(M+m))) dth^2 + m^2 l^2/(2(M+m)) sin(th)^2 dth^2 + m g l cos th,
       // expanding p^2 with cos^2 = 1 - sin^2 (by hand, from the handbook energy and momentum above).
