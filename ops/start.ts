@@ -1,9 +1,14 @@
 /**
  * `npm start`: builds the web app when needed, starts the database (private cluster unless DATABASE_URL is
- * set), applies migrations, seeds the demo once (development only), starts the API and one worker, prints
- * the URL, and on Ctrl-C stops everything it started.
+ * set), applies migrations, seeds the demo once (development only: teams, projects, recordings, candidate
+ * sets and a first sweep per demo project), starts the local mailbox (development, unless CONSERVA_SMTP_URL
+ * names a server), the API and one worker, prints the URL, and on Ctrl-C stops everything it started.
  */
+import { allowanceDefaultsFrom } from '../api/src/config.js';
 import { openOrm } from '../api/src/db/open-orm.js';
+import { seedDemoWork } from '../api/src/demo/seed-demo-work.js';
+import { createLogger } from '../api/src/logger.js';
+import { QueueClient } from '../api/src/queue/queue-client.js';
 import { seedDemo } from '../api/src/db/seed-demo.js';
 import type { DemoAccount } from '../api/src/db/demo-scenario.js';
 import { applyMigrationsAt } from './apply-migrations.js';
@@ -39,11 +44,15 @@ function shutDown(code: number): Promise<never> {
 
 async function seedDemoData(databaseUrl: string): Promise<DemoAccount[]> {
   const orm = await openOrm(databaseUrl, { poolMax: 2 });
+  const queue = new QueueClient(databaseUrl, createLogger('warn', 'start'));
   try {
     const result = await seedDemo(orm);
     log(result.seededNow ? 'Demo data seeded.' : 'Demo data was seeded before; left as it is.');
+    const launched = await seedDemoWork(orm, await queue.get(), allowanceDefaultsFrom(process.env));
+    if (launched > 0) log(`Demo recordings and candidate sets seeded; ${launched} demo sweep(s) queued for the worker.`);
     return result.accounts;
   } finally {
+    await queue.close();
     await orm.close();
   }
 }
@@ -96,6 +105,9 @@ async function main(): Promise<void> {
     DATABASE_URL: database.url,
     CONSERVA_SESSION_SECRET: production ? process.env.CONSERVA_SESSION_SECRET : developmentSessionSecret(projectRoot),
   };
+  if (!production && !process.env.CONSERVA_SMTP_URL) {
+    services.push(startService('mailbox', 'ops/mailbox.ts', projectRoot, env));
+  }
   services.push(startService('api', 'api/src/main.ts', projectRoot, env));
   services.push(startService('worker', 'worker/src/main.ts', projectRoot, env));
   for (const service of services) {

@@ -15,6 +15,7 @@ export const auditActions = [
   'project.updated',
   'project.deleted',
   'demo.seeded',
+  'demo.work_seeded',
   'recording.uploaded',
   'recording.deleted',
   'candidate_set.created',

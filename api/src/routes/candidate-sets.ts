@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { MikroORM } from '@mikro-orm/postgresql';
 import { Router, type Request } from 'express';
 import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
@@ -66,6 +67,7 @@ export function projectCandidateSetsRouter(orm: MikroORM): Router {
     const input = parseBody(candidateSetInputSchema, req);
     const check = checkedForSaving(input);
     const set = orm.em.create(CandidateSet, {
+      id: randomUUID(),
       project,
       ...input,
       candidateCount: check.candidateCount,

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { MikroORM } from '@mikro-orm/postgresql';
 import { Router, type Request } from 'express';
 import {
@@ -66,6 +67,7 @@ export function projectRecordingsRouter(orm: MikroORM, uploadLimitBytes: number)
     const user = req.user!;
     const recording = await orm.em.transactional(async (tx) => {
       const created = tx.create(Recording, {
+        id: randomUUID(),
         project,
         name: fields.name ?? baseName(file.originalname),
         fileName: file.originalname.slice(0, 255),

@@ -11,11 +11,10 @@ import { HttpError, notFound } from '../http/http-error.js';
 import { parseBody, parseInput } from '../http/parse-body.js';
 import { parseId } from '../http/parse-id.js';
 import type { QueueClient } from '../queue/queue-client.js';
-import { sweepJobDefaults, sweepQueueNames } from '../queue/sweep-jobs.js';
-import { sendInTransaction } from '../queue/transactional-send.js';
 import { recordAudit } from '../services/audit-trail.js';
-import { lockAllowance, readAllowance, teamUsage } from '../sweeps/allowance-ledger.js';
+import { readAllowance, teamUsage } from '../sweeps/allowance-ledger.js';
 import { planLaunch } from '../sweeps/launch-plan.js';
+import { launchSweep } from '../sweeps/sweep-launch.js';
 import { estimateAnswer } from '../sweeps/sweep-estimate-answer.js';
 import { endSweep } from '../sweeps/sweep-end.js';
 import { loadSweepForView, toSweepDetail, toSweepLeaderboard, toSweepSummary } from '../sweeps/sweep-views.js';
@@ -47,44 +46,9 @@ export function projectSweepsRouter(orm: MikroORM, queue: QueueClient, options: 
   router.post('/', requireRole(...editorRoles), async (req, res) => {
     const project = await loadVisibleProject(orm.em, req);
     const launch = parseBody(sweepLaunchSchema, req);
-    const plan = await planLaunch(orm.em, project, launch);
-    const boss = await queue.get();
     const user = req.user!;
-    const sweepId = await orm.em.fork().transactional(async (tx) => {
-      const limits = await lockAllowance(tx, project.team.id, options.allowanceDefaults);
-      const team = await tx.findOneOrFail(Team, { id: project.team.id });
-      const estimate = await estimateAnswer(tx, plan, team, limits, await teamUsage(tx, team.id));
-      if (!estimate.fits) {
-        const fields = Object.fromEntries(estimate.refusals.map((r) => [r.limit, r.message]));
-        throw new HttpError(409, 'allowance_exceeded', estimate.refusals.map((r) => r.message).join(' '), fields);
-      }
-      const sweep = tx.create(Sweep, {
-        project: project.id,
-        team,
-        name: plan.name,
-        state: 'queued',
-        candidateSetId: plan.candidateSet.id,
-        candidateSetName: plan.candidateSet.name,
-        description: plan.description,
-        launchedById: user.id,
-        launchedByName: user.name,
-        launchedByEmail: user.email,
-        totalSubsets: plan.totalSubsets,
-        estimatedCpuSeconds: plan.cpuSeconds,
-        excluded: [],
-        warnings: plan.warnings,
-      });
-      recordAudit(tx, req, {
-        action: 'sweep.launched',
-        teamId: team.id,
-        targetType: 'sweep',
-        targetId: sweep.id,
-        details: { name: sweep.name, subsets: plan.totalSubsets, cpuSeconds: Math.round(plan.cpuSeconds) },
-      });
-      await tx.flush();
-      await sendInTransaction(boss, tx, sweepQueueNames.prepare, { kind: 'prepare', sweepId: sweep.id }, sweepJobDefaults.prepare);
-      return sweep.id;
-    });
+    const launcher = { id: user.id, name: user.name, email: user.email };
+    const sweepId = await launchSweep(orm.em, await queue.get(), project, launch, launcher, options.allowanceDefaults, req);
     const sweep = await loadSweepForView(orm.em, { id: sweepId });
     res.status(201).json(await toSweepDetail(orm.em, sweep!));
   });
