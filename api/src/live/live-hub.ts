@@ -219,25 +219,28 @@ export class LiveHub {
   private async listen(): Promise<void> {
     while (!this.closed) {
       const listener = new pg.Client({ connectionString: this.databaseUrl });
+      this.listener = listener;
       const ended = new Promise<void>((resolve) => {
         listener.on('error', (err) => {
-          this.logger.warn({ err }, 'live event connection failed; reconnecting');
+          if (!this.closed) this.logger.warn({ err }, 'live event connection failed; reconnecting');
           resolve();
         });
         listener.on('end', () => resolve());
       });
       try {
         await listener.connect();
+        // close() may have come while connecting: it could not end a connection that did not exist yet.
+        if (this.closed) break;
         listener.on('notification', (message) => void this.onEvent(message.payload));
         await listener.query(`LISTEN ${sweepEventChannel}`);
-        this.listener = listener;
         await ended;
       } catch (err) {
-        this.logger.warn({ err }, 'could not listen for sweep events; retrying');
+        if (!this.closed) this.logger.warn({ err }, 'could not listen for sweep events; retrying');
       }
       await listener.end().catch(() => undefined);
       if (!this.closed) await new Promise((resolve) => setTimeout(resolve, 1000));
     }
+    await this.listener?.end().catch(() => undefined);
   }
 
   private async onEvent(payload: string | undefined): Promise<void> {
