@@ -25,6 +25,7 @@ import type { JobContext } from './jobs/job-context.js';
 import { runPrepareJob } from './jobs/prepare-job.js';
 import { runShardJob } from './jobs/shard-job.js';
 import { SweepPool } from './pool/sweep-pool.js';
+import { SweepStepPool } from './pool/sweep-step-pool.js';
 import { startPresenceHeartbeat } from './worker-presence-heartbeat.js';
 
 const config = loadWorkerConfig();
@@ -52,6 +53,7 @@ async function stop(signal: string): Promise<void> {
   await boss.stop({ graceful: true, wait: true, timeout: 10_000 });
   await stopPresence?.();
   await context?.pool.destroy();
+  await context?.steps.destroy();
   context?.mailer.close();
   await context?.orm.close();
   logger.info('stopped');
@@ -90,6 +92,7 @@ async function main(): Promise<void> {
     orm,
     boss,
     pool: new SweepPool({ threads: config.threads }),
+    steps: new SweepStepPool(),
     config,
     logger,
     mailer: new SweepMailer(config.smtpUrl, config.mailFrom, logger),

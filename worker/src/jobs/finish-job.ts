@@ -1,10 +1,6 @@
 import { LockMode } from '@mikro-orm/postgresql';
-import { prepareDiscovery } from '../../../shared/math/discovery-preparation.js';
-import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
-import { selectModels } from '../../../shared/math/model-selection.js';
 import { settingsOfSweep } from '../../../shared/sweeps/frozen-settings.js';
-import { emptyLeaderboard, leaderboardOutcome } from '../../../shared/sweeps/stored-leaderboard.js';
-import { sweepResult } from '../../../shared/sweeps/sweep-result.js';
+import { emptyLeaderboard } from '../../../shared/sweeps/stored-leaderboard.js';
 import { Sweep } from '../../../api/src/entities/sweep.js';
 import { notifySweepEvent } from '../../../api/src/live/sweep-events.js';
 import type { FinishJob } from '../../../api/src/queue/sweep-jobs.js';
@@ -15,31 +11,27 @@ import type { JobContext } from './job-context.js';
 
 /**
  * Finish (design step 5): once every shard has merged, runs the command line's finish step on the merged
- * leaderboard (the preparation is rebuilt from the same recordings and settings, which gives the same
- * columns), stores the result in the command line's shape and marks the sweep finished. Only a running
- * sweep with every shard merged is finished; anything else leaves the job with nothing to do.
+ * leaderboard (on the step thread), stores the result in the command line's shape and marks the sweep
+ * finished. Only a running sweep with every shard merged is finished; anything else leaves the job with
+ * nothing to do.
  */
 export async function runFinishJob(ctx: JobContext, job: FinishJob): Promise<void> {
   const em = ctx.orm.em.fork();
   const sweep = await em.findOne(Sweep, { id: job.sweepId });
   if (!sweep || sweep.state !== 'running' || sweep.shardsDone < sweep.shardCount) return;
-  const started = performance.now();
-  const settings = settingsOfSweep(sweep.description);
-  const recordings = await loadSignalRecordings(em, sweep.description);
-  let result;
-  try {
-    const prepared = prepareDiscovery(settings, recordings);
-    const outcome = leaderboardOutcome(sweep.leaderboard ?? emptyLeaderboard(), { evaluated: sweep.evaluated, rejected: sweep.rejected });
-    const selection = selectModels(prepared, settings, outcome);
-    const running = sweep.startedAt ? (Date.now() - sweep.startedAt.getTime()) / 1000 : (performance.now() - started) / 1000;
-    result = sweepResult(settings, recordings, prepared, outcome, selection, running);
-  } catch (error) {
-    if (error instanceof DiscoveryInputError) {
-      await failSweep(ctx, sweep.id, error.message);
-      return;
-    }
-    throw error;
+  const seconds = sweep.startedAt ? (Date.now() - sweep.startedAt.getTime()) / 1000 : 0;
+  const answer = await ctx.steps.finish(
+    settingsOfSweep(sweep.description),
+    await loadSignalRecordings(em, sweep.description),
+    sweep.leaderboard ?? emptyLeaderboard(),
+    { evaluated: sweep.evaluated, rejected: sweep.rejected },
+    seconds,
+  );
+  if ('refused' in answer) {
+    await failSweep(ctx, sweep.id, answer.refused);
+    return;
   }
+  const result = answer.ok;
   await ctx.orm.em.fork().transactional(async (tx) => {
     const locked = await tx.findOne(Sweep, { id: job.sweepId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!locked || locked.state !== 'running') return;

@@ -4,12 +4,15 @@ import type { Logger } from 'pino';
 import type { SweepMailer } from '../../../api/src/mail/sweep-mailer.js';
 import type { WorkerConfig } from '../config.js';
 import type { SweepPool } from '../pool/sweep-pool.js';
+import type { SweepStepPool } from '../pool/sweep-step-pool.js';
 
 /** What every job handler of this worker shares. */
 export interface JobContext {
   orm: MikroORM;
   boss: PgBoss;
   pool: SweepPool;
+  /** The prepare and finish steps, on a thread of their own. */
+  steps: SweepStepPool;
   config: WorkerConfig;
   logger: Logger;
   mailer: SweepMailer;

@@ -1,11 +1,8 @@
 import { LockMode } from '@mikro-orm/postgresql';
-import { prepareDiscovery, type PreparedDiscovery } from '../../../shared/math/discovery-preparation.js';
-import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
-import { encodeProblemData, type ProblemMeta } from '../../../shared/sweeps/problem-encoding.js';
+import { countSliceSubsets } from '../../../shared/math/combinations.js';
 import { settingsOfSweep } from '../../../shared/sweeps/frozen-settings.js';
 import { planShards } from '../../../shared/sweeps/shard-plan.js';
 import { emptyLeaderboard } from '../../../shared/sweeps/stored-leaderboard.js';
-import { countSliceSubsets } from '../../../shared/math/combinations.js';
 import { Shard } from '../../../api/src/entities/shard.js';
 import { Sweep } from '../../../api/src/entities/sweep.js';
 import { notifySweepEvent } from '../../../api/src/live/sweep-events.js';
@@ -16,43 +13,23 @@ import { loadSignalRecordings } from '../sweeps/signal-recordings.js';
 import { failSweep } from '../sweeps/sweep-failure.js';
 import type { JobContext } from './job-context.js';
 
-function problemMetaOf(prepared: PreparedDiscovery, referenceCoefficient: number | undefined): ProblemMeta {
-  const reference = prepared.set.reference;
-  return {
-    columnCount: prepared.problem.columnCount,
-    knownCount: prepared.problem.knownCount,
-    yty: prepared.problem.yty,
-    scales: prepared.training.columns.map((column) => Math.sqrt(column.reduce((sum, v) => sum + v * v, 0))),
-    terms: prepared.training.terms.map((term) => term.text),
-    reference: reference ? { term: reference.text, coefficient: referenceCoefficient! } : null,
-    rowCount: prepared.training.rowCount,
-    sizes: prepared.sizes,
-  };
-}
-
 /**
  * Prepare (design step 2): signals, regression system and the scaled Gram problem from the stored
- * recordings; stores what shards need on the sweep, cuts the rank space into shards and enqueues them, all
- * in one transaction. A sweep that is no longer queued (cancelled, or prepared by an earlier attempt) is
- * left alone. Input the engine refuses fails the sweep with the engine's message.
+ * recordings (on the step thread); stores what shards need on the sweep, cuts the rank space into shards and
+ * enqueues them, all in one transaction. A sweep that is no longer queued (cancelled, or prepared by an
+ * earlier attempt) is left alone. Input the engine refuses fails the sweep with the engine's message.
  */
 export async function runPrepareJob(ctx: JobContext, job: PrepareJob): Promise<void> {
   const em = ctx.orm.em.fork();
   const sweep = await em.findOne(Sweep, { id: job.sweepId });
   if (!sweep || sweep.state !== 'queued') return;
-  const settings = settingsOfSweep(sweep.description);
-  let prepared: PreparedDiscovery;
-  try {
-    prepared = prepareDiscovery(settings, await loadSignalRecordings(em, sweep.description));
-  } catch (error) {
-    if (error instanceof DiscoveryInputError) {
-      await failSweep(ctx, sweep.id, error.message);
-      return;
-    }
-    throw error;
+  const answer = await ctx.steps.prepare(settingsOfSweep(sweep.description), await loadSignalRecordings(em, sweep.description));
+  if ('refused' in answer) {
+    await failSweep(ctx, sweep.id, answer.refused);
+    return;
   }
-  const meta = problemMetaOf(prepared, settings.reference?.coefficient);
-  const shards = planShards(prepared.candidateCount, prepared.sizes, await measuredThroughput(em), {
+  const prepared = answer.ok;
+  const shards = planShards(prepared.candidateCount, prepared.meta.sizes, await measuredThroughput(em), {
     targetSeconds: ctx.config.shardSeconds,
     subsetsPerShard: ctx.config.shardSubsets,
   });
@@ -63,10 +40,10 @@ export async function runPrepareJob(ctx: JobContext, job: PrepareJob): Promise<v
     Object.assign(locked, {
       state: 'running',
       startedAt: new Date(),
-      problemMeta: meta,
-      problemData: Buffer.from(encodeProblemData(prepared.problem)),
+      problemMeta: prepared.meta,
+      problemData: Buffer.from(prepared.data),
       candidateCount: prepared.candidateCount,
-      rowCount: prepared.training.rowCount,
+      rowCount: prepared.rowCount,
       totalSubsets: prepared.total,
       excluded: prepared.excluded,
       warnings: [...new Set([...locked.warnings, ...prepared.warnings])],
