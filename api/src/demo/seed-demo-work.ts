@@ -12,10 +12,9 @@ import { AuditEvent } from '../entities/audit-event.js';
 import { CandidateSet } from '../entities/candidate-set.js';
 import { Project } from '../entities/project.js';
 import { Recording } from '../entities/recording.js';
-import { RecordingSamples } from '../entities/recording-samples.js';
 import { User } from '../entities/user.js';
 import { parseRecording } from '../recordings/recording-parse.js';
-import { encodeChannels } from '../recordings/samples-codec.js';
+import { storeRecording } from '../recordings/recording-store.js';
 import { recordAudit } from '../services/audit-trail.js';
 import { launchSweep } from '../sweeps/sweep-launch.js';
 import { demoProjectData, demoRecordingsDir, type DemoProjectData } from './demo-recordings.js';
@@ -44,25 +43,15 @@ export async function seedDemoRecordings(orm: MikroORM): Promise<SeededProject[]
       const recordingIds: SeededProject['recordingIds'] = [];
       for (const file of data.recordings) {
         const text = readFileSync(new URL(file.file, demoRecordingsDir), 'utf8');
-        const parsed = parseRecording(text, file.file, mapping);
-        const recording = tx.create(Recording, {
-          id: randomUUID(),
+        const recording = storeRecording(tx, {
           project,
           name: file.name,
           fileName: file.file,
           sizeBytes: Buffer.byteLength(text),
-          coordinates: mapping.coordinates.map((c) => c.name),
           mapping,
-          channels: parsed.channels,
-          sampleCount: parsed.sampleCount,
-          startTime: parsed.startTime,
-          durationSeconds: parsed.durationSeconds,
-          sampling: parsed.sampling,
-          forced: parsed.forced,
-          uploadedById: analyst.id,
-          uploadedByName: analyst.name,
+          parsed: parseRecording(text, file.file, mapping),
+          uploadedBy: { id: analyst.id, name: analyst.name },
         });
-        tx.create(RecordingSamples, { recording, data: encodeChannels(parsed.values) });
         recordingIds.push({ id: recording.id, role: file.role });
       }
       const generator = data.candidateSet.generator!;

@@ -1,4 +1,3 @@
-import { randomUUID } from 'node:crypto';
 import type { MikroORM } from '@mikro-orm/postgresql';
 import { Router, type Request } from 'express';
 import {
@@ -21,7 +20,8 @@ import { parseRecording } from '../recordings/recording-parse.js';
 import { thinnedIndices } from '../recordings/recording-thinning.js';
 import { recordingUseCounts } from '../recordings/recording-usage.js';
 import { toRecordingView } from '../recordings/recording-view.js';
-import { decodeChannels, encodeChannels } from '../recordings/samples-codec.js';
+import { storeRecording } from '../recordings/recording-store.js';
+import { decodeChannels } from '../recordings/samples-codec.js';
 import { uploadedText } from '../recordings/upload-error.js';
 import { recordAudit } from '../services/audit-trail.js';
 
@@ -66,24 +66,15 @@ export function projectRecordingsRouter(orm: MikroORM, uploadLimitBytes: number)
     const parsed = parseRecording(uploadedText(file.buffer, file.originalname), file.originalname, fields.mapping);
     const user = req.user!;
     const recording = await orm.em.transactional(async (tx) => {
-      const created = tx.create(Recording, {
-        id: randomUUID(),
+      const created = storeRecording(tx, {
         project,
         name: fields.name ?? baseName(file.originalname),
-        fileName: file.originalname.slice(0, 255),
+        fileName: file.originalname,
         sizeBytes: file.size,
-        coordinates: fields.mapping.coordinates.map((c) => c.name),
         mapping: fields.mapping,
-        channels: parsed.channels,
-        sampleCount: parsed.sampleCount,
-        startTime: parsed.startTime,
-        durationSeconds: parsed.durationSeconds,
-        sampling: parsed.sampling,
-        forced: parsed.forced,
-        uploadedById: user.id,
-        uploadedByName: user.name,
+        parsed,
+        uploadedBy: { id: user.id, name: user.name },
       });
-      tx.create(RecordingSamples, { recording: created, data: encodeChannels(parsed.values) });
       recordAudit(tx, req, {
         action: 'recording.uploaded',
         teamId: project.team.id,
