@@ -10,7 +10,8 @@ import { type AuditAction, type AuditEventView, auditActions } from '../../../..
 import { toApiFailure } from '../../core/api-failure';
 import { AdminApi } from './admin-api';
 
-const actionLabels: Record<AuditAction, string> = {
+/** How actions read on screen; an action added later reads as its code until it gets a label here. */
+const actionLabels: Partial<Record<AuditAction, string>> = {
   'session.signed_in': 'Signed in',
   'session.sign_in_failed': 'Sign-in failed',
   'session.signed_out': 'Signed out',
@@ -64,6 +65,10 @@ const actionLabels: Record<AuditAction, string> = {
             <th mat-header-cell *matHeaderCellDef>Who</th>
             <td mat-cell *matCellDef="let e">{{ e.actorEmail ?? '–' }}</td>
           </ng-container>
+          <ng-container matColumnDef="team">
+            <th mat-header-cell *matHeaderCellDef>Team</th>
+            <td mat-cell *matCellDef="let e">{{ e.teamId ? (teamNames().get(e.teamId) ?? 'removed team') : '–' }}</td>
+          </ng-container>
           <ng-container matColumnDef="details">
             <th mat-header-cell *matHeaderCellDef>Details</th>
             <td mat-cell *matCellDef="let e" class="details">{{ describe(e) }}</td>
@@ -88,7 +93,7 @@ const actionLabels: Record<AuditAction, string> = {
     .when { white-space: nowrap; }
     .action { font-weight: 500; }
     .action.bad { color: var(--mat-sys-error); }
-    .details { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); max-width: 480px; }
+    .details { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); max-width: 420px; overflow-wrap: anywhere; }
     .small { font: var(--mat-sys-body-small); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -96,7 +101,8 @@ const actionLabels: Record<AuditAction, string> = {
 export class AuditPanel {
   private readonly adminApi = inject(AdminApi);
   protected readonly actions = auditActions;
-  protected readonly columns = ['when', 'action', 'actor', 'details'];
+  protected readonly columns = ['when', 'action', 'actor', 'team', 'details'];
+  protected readonly teamNames = signal<ReadonlyMap<string, string>>(new Map());
   protected readonly events = signal<AuditEventView[] | null>(null);
   protected readonly failure = signal<string | null>(null);
   protected readonly filter = signal<AuditAction | ''>('');
@@ -111,14 +117,16 @@ export class AuditPanel {
 
   protected async load(): Promise<void> {
     try {
-      this.events.set(await this.adminApi.auditEvents(300));
+      const [events, teams] = await Promise.all([this.adminApi.auditEvents(300), this.adminApi.teams()]);
+      this.teamNames.set(new Map(teams.map((t) => [t.id, t.name])));
+      this.events.set(events);
     } catch (err) {
       this.failure.set(toApiFailure(err).message);
     }
   }
 
   protected label(action: AuditAction): string {
-    return actionLabels[action];
+    return actionLabels[action] ?? action.replace(/[._]/g, ' ');
   }
 
   protected describe(event: AuditEventView): string {

@@ -79,7 +79,7 @@ import { NewUserDialog } from './new-user-dialog';
     .bar .section-note { margin: 8px 0 0; }
     .flush { padding: 4px 0; overflow-x: auto; }
     .small { font: var(--mat-sys-body-small); }
-    .inline { width: 200px; }
+    .inline { width: 220px; font: var(--mat-sys-body-medium); }
     .actions { width: 64px; text-align: right; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

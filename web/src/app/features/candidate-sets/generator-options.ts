@@ -29,29 +29,32 @@ export function defaultGeneratorChoice(angles: string[]): GeneratorChoice {
   template: `
     <form [formGroup]="form" (ngSubmit)="submit()" class="options">
       <mat-form-field>
-        <mat-label>Powers of coordinates up to</mat-label>
+        <mat-label>Coordinate powers</mat-label>
         <mat-select formControlName="polynomialDegree">
-          @for (d of [0, 1, 2, 3, 4]; track d) { <mat-option [value]="d">{{ d === 0 ? 'none' : 'degree ' + d }}</mat-option> }
+          @for (d of [0, 1, 2, 3, 4]; track d) { <mat-option [value]="d">{{ d === 0 ? 'none' : 'up to degree ' + d }}</mat-option> }
         </mat-select>
+        <mat-hint>x, x², x·θ, …</mat-hint>
       </mat-form-field>
       <mat-form-field>
         <mat-label>Angles</mat-label>
         <mat-select formControlName="angles" multiple>
           @for (c of coordinates(); track c) { <mat-option [value]="c">{{ c }}</mat-option> }
         </mat-select>
-        <mat-hint>Coordinates that get sines and cosines</mat-hint>
+        <mat-hint>Get sines and cosines</mat-hint>
       </mat-form-field>
       <mat-form-field>
-        <mat-label>Velocity products up to</mat-label>
+        <mat-label>Velocity powers</mat-label>
         <mat-select formControlName="velocityDegree">
-          @for (d of [2, 3, 4]; track d) { <mat-option [value]="d">degree {{ d }}</mat-option> }
+          @for (d of [2, 3, 4]; track d) { <mat-option [value]="d">up to degree {{ d }}</mat-option> }
         </mat-select>
+        <mat-hint>ẋ², ẋ·θ̇, …</mat-hint>
       </mat-form-field>
       <mat-form-field>
-        <mat-label>Coordinate factors on velocity terms</mat-label>
+        <mat-label>Coordinate factors</mat-label>
         <mat-select formControlName="kineticPolynomialDegree">
           @for (d of [0, 1, 2, 3]; track d) { <mat-option [value]="d">{{ d === 0 ? 'none' : 'up to degree ' + d }}</mat-option> }
         </mat-select>
+        <mat-hint>On velocity terms, such as x·ẋ²</mat-hint>
       </mat-form-field>
       <div class="toggles">
         <mat-slide-toggle formControlName="trigonometric">Sines and cosines of angles</mat-slide-toggle>
@@ -67,7 +70,7 @@ export function defaultGeneratorChoice(angles: string[]): GeneratorChoice {
   `,
   styles: `
     .options { display: grid; grid-template-columns: repeat(4, minmax(0, 1fr)); gap: 4px 14px; align-items: start; }
-    .toggles { grid-column: 1 / 4; display: flex; flex-wrap: wrap; gap: 8px 24px; padding-top: 6px; }
+    .toggles { grid-column: 1 / 4; display: flex; flex-wrap: wrap; gap: 8px 24px; padding-top: 14px; }
     .go { display: flex; justify-content: flex-end; }
     @media (max-width: 1100px) { .options { grid-template-columns: repeat(2, minmax(0, 1fr)); } .toggles { grid-column: 1 / -1; } }
   `,

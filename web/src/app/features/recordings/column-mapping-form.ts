@@ -72,7 +72,7 @@ import type { MappingForm } from './mapping-form-model';
               <mat-form-field>
                 <mat-label>Velocity column</mat-label>
                 <mat-select formControlName="column">
-                  <mat-option value="">Estimate from positions</mat-option>
+                  <mat-option value="">Estimated</mat-option>
                   @for (column of inspection().header; track column) {
                     <mat-option [value]="column">{{ column }}</mat-option>
                   }
@@ -84,7 +84,7 @@ import type { MappingForm } from './mapping-form-model';
               <mat-form-field>
                 <mat-label>Force column</mat-label>
                 <mat-select formControlName="column">
-                  <mat-option value="">None recorded</mat-option>
+                  <mat-option value="">None</mat-option>
                   @for (column of inspection().header; track column) {
                     <mat-option [value]="column">{{ column }}</mat-option>
                   }

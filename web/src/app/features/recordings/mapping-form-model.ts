@@ -60,29 +60,42 @@ export function toMapping(value: ReturnType<MappingForm['getRawValue']>): Record
 }
 
 const angleName = /^(th|theta|phi|ph|psi|alpha|beta|gamma|q|angle|a)\d*$/i;
-const forcePrefix = /^(u|f|force|tau|torque)_?(.+)$/i;
-const velocityPattern = [/^d(.+)$/, /^(.+)_?dot$/i, /^v_?(.+)$/i, /^omega_?(.+)$/i];
+const forceLike = /(force|torque|tau)|^(u|f)_/i;
+const velocityPattern = [/^d(.+)$/, /^(.+?)_?dot$/i, /^v_?(.+)$/i, /^omega_?(.+)$/i];
+/** Units written as a suffix of the column name (`cart_x_m`, `pole_angle_rad`, `cart_force_N`). */
+const unitSuffix = /[_ ]?\[?(m|mm|cm|rad|deg|N|Nm|N_m|kg|s)\]?$/;
 
-/** A coordinate name from a column name: letters, digits and _ only, starting with a letter. */
+function unitOf(column: string): string | null {
+  const match = unitSuffix.exec(column);
+  if (!match || match.index === 0) return null;
+  const unit = match[1]!;
+  return unit === 'Nm' || unit === 'N_m' ? 'N*m' : unit;
+}
+
+/** A coordinate name from a column name: the unit suffix dropped, letters, digits and _ only, starting with a letter. */
 export function coordinateNameFrom(column: string): string {
-  const cleaned = column.replace(/\[.*?\]|\(.*?\)/g, '').trim().replace(/[^A-Za-z0-9_]+/g, '_').replace(/^_+|_+$/g, '');
+  const bare = unitOf(column) ? column.replace(unitSuffix, '') : column;
+  const cleaned = bare.replace(/\[.*?\]|\(.*?\)/g, '').trim().replace(/[^A-Za-z0-9_]+/g, '_').replace(/^_+|_+$/g, '');
   return /^[A-Za-z]/.test(cleaned) ? cleaned.slice(0, 40) : `q_${cleaned}`.slice(0, 40);
 }
 
+function commonPrefixLength(a: string, b: string): number {
+  let n = 0;
+  while (n < a.length && n < b.length && a[n]!.toLowerCase() === b[n]!.toLowerCase()) n++;
+  return n;
+}
+
 /**
- * A first guess at the mapping from the file alone: the suggested time column, `u_<name>`-like columns as
- * forces, `d<name>`-like columns as velocities, every other numeric column a coordinate. Angle-like names get
- * radians, others metres. The user corrects what is wrong.
+ * A first guess at the mapping from the file alone: the suggested time column; force-like columns (`u_x`,
+ * `cart_force_N`) as the force on the coordinate whose column shares most of their name; `d<name>`-like
+ * columns as velocities; every other numeric column a coordinate. Units come from name suffixes (`_m`,
+ * `_rad`), else radians for angle-like names and metres otherwise. The user corrects what is wrong.
  */
 export function suggestMapping(inspection: RecordingInspection): { timeColumn: string; coordinates: CoordinateDraft[] } {
   const numeric = inspection.numericColumns;
   const timeColumn = inspection.suggestedTimeColumn ?? numeric[0] ?? inspection.header[0] ?? '';
   const rest = numeric.filter((c) => c !== timeColumn);
-  const forces = new Map<string, string>();
-  for (const column of rest) {
-    const match = forcePrefix.exec(column);
-    if (match && rest.includes(match[2]!)) forces.set(match[2]!, column);
-  }
+  const forceColumns = rest.filter((c) => forceLike.test(c));
   const velocities = new Map<string, string>();
   for (const column of rest) {
     for (const pattern of velocityPattern) {
@@ -93,21 +106,26 @@ export function suggestMapping(inspection: RecordingInspection): { timeColumn: s
       }
     }
   }
-  const taken = new Set([...forces.values(), ...velocities.values()]);
-  const coordinates = rest
-    .filter((column) => !taken.has(column))
-    .slice(0, 8)
-    .map((column): CoordinateDraft => {
-      const name = coordinateNameFrom(column);
-      const angle = angleName.test(name);
-      return {
-        name,
-        column,
-        unit: angle ? 'rad' : 'm',
-        velocity: { column: velocities.get(column) ?? '', unit: angle ? 'rad/s' : 'm/s' },
-        force: { column: forces.get(column) ?? '', unit: angle ? 'N*m' : 'N' },
-      };
-    });
+  const taken = new Set([...forceColumns, ...velocities.values()]);
+  const positions = rest.filter((column) => !taken.has(column)).slice(0, 8);
+  const forces = new Map<string, string>();
+  for (const force of forceColumns) {
+    const target = [...positions].sort((a, b) => commonPrefixLength(b, force) - commonPrefixLength(a, force))[0];
+    if (target && !forces.has(target)) forces.set(target, force);
+  }
+  const coordinates = positions.map((column): CoordinateDraft => {
+    const name = coordinateNameFrom(column);
+    const angle = unitOf(column) === 'rad' || unitOf(column) === 'deg' || angleName.test(name) || /angle/i.test(name);
+    const unit = unitOf(column) ?? (angle ? 'rad' : 'm');
+    const force = forces.get(column) ?? '';
+    return {
+      name,
+      column,
+      unit,
+      velocity: { column: velocities.get(column) ?? '', unit: `${unit}/s` },
+      force: { column: force, unit: (force && unitOf(force)) || (angle ? 'N*m' : 'N') },
+    };
+  });
   return { timeColumn, coordinates };
 }
 

@@ -18,7 +18,8 @@ import { FigurePipe } from '../../shared/format/figure-pipe';
 import { ProjectNames } from '../projects/project-names';
 import { RecordingsApi } from './recordings-api';
 
-const kindLabels: Record<RecordingChannel['kind'], string> = { time: 'time', position: 'position', velocity: 'velocity', force: 'force' };
+const kindLabels: Record<RecordingChannel['kind'], string> = { time: 'time', position: 'position', velocity: 'velocity', force: 'force on' };
+const kindOrder: Record<RecordingChannel['kind'], number> = { time: 0, position: 1, velocity: 2, force: 3 };
 
 /** One recording: its sampling statistics, its column mapping and a plot of every channel against time. */
 @Component({
@@ -77,7 +78,7 @@ const kindLabels: Record<RecordingChannel['kind'], string> = { time: 'time', pos
             @for (plot of list; track plot.key) {
               <figure class="plot">
                 <figcaption><span class="mono">{{ plot.key }}</span> · {{ plot.caption }}</figcaption>
-                <app-line-chart [series]="plot.series" [xLabel]="'time (' + r.mapping.time.unit + ')'" [yLabel]="plot.unit" [height]="200" [ariaLabel]="'Plot of ' + plot.caption + ' against time'" />
+                 <app-line-chart [series]="plot.series" [xLabel]="'time (' + r.mapping.time.unit + ')'" [height]="200" [ariaLabel]="'Plot of ' + plot.caption + ' against time'" />
               </figure>
             }
           </div>
@@ -116,12 +117,16 @@ export class RecordingPage {
   protected readonly plots = computed(() => {
     const samples = this.samples();
     if (!samples) return null;
-    return samples.channels.map((channel) => ({
-      key: channel.key,
-      unit: channel.unit,
-      caption: `${kindLabels[channel.kind]}${channel.coordinate ? ` of ${channel.coordinate}` : ''}${channel.unit ? ` (${channel.unit})` : ''}, column ${channel.column}`,
-      series: [{ name: channel.key, x: samples.time, y: channel.values }],
-    }));
+    const coordinates = this.recording()?.coordinates ?? [];
+    const place = (c: RecordingChannel) => kindOrder[c.kind] * 100 + Math.max(0, coordinates.indexOf(c.coordinate ?? ''));
+    return [...samples.channels]
+      .sort((a, b) => place(a) - place(b))
+      .map((channel) => ({
+        key: channel.key,
+        unit: channel.unit,
+        caption: `${kindLabels[channel.kind]}${channel.kind === 'force' ? ` ${channel.coordinate}` : ''}${channel.unit ? ` (${channel.unit})` : ''} · column ${channel.column}`,
+        series: [{ name: channel.key, x: samples.time, y: channel.values }],
+      }));
   });
 
   constructor() {

@@ -237,7 +237,9 @@ export class RecordingUploadPage {
       row !== null ? `data row ${row}` : null,
       column !== null ? `column “${column}”` : null,
     ].filter(Boolean);
-    this.problem.set({ message: failure.message, where: where.length ? `At: ${where.join(', ')}.` : null });
+    // The server's sentence usually names the place already; say it again only when it does not.
+    const named = row !== null && failure.message.includes(`row ${row}`);
+    this.problem.set({ message: failure.message, where: where.length && !named ? `At: ${where.join(', ')}.` : null });
   }
 }
 

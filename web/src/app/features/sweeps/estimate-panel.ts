@@ -41,7 +41,7 @@ import { DurationPipe } from '../../shared/format/duration-pipe';
             <span><i class="used"></i>used {{ e.allowance.cpuSecondsUsed | duration }}</span>
             <span><i class="reserved"></i>reserved {{ e.allowance.cpuSecondsReserved | duration }}</span>
             <span><i class="this"></i>this sweep</span>
-            <span class="muted">of {{ e.allowance.cpuSecondsPerMonth | duration }} in {{ e.allowance.month }}</span>
+            <span class="muted">of {{ e.allowance.cpuSecondsPerMonth | duration }} allowed in {{ e.allowance.month }}</span>
           </p>
         </div>
         <table class="sizes" aria-label="Subsets per size">
@@ -59,7 +59,7 @@ import { DurationPipe } from '../../shared/format/duration-pipe';
         @if (anyUnmeasured()) {
           <p class="muted small">* from a built-in rate; sizes measured on earlier sweeps use their measured rate.</p>
         }
-        <p class="muted small">{{ e.candidateCount }} candidates, {{ e.knownCount }} known terms, {{ e.workerThreads }} worker threads running.</p>
+        <p class="muted small">{{ plural(e.candidateCount, 'candidate') }}, {{ plural(e.knownCount, 'known term') }}, {{ plural(e.workerThreads, 'worker thread') }} running.</p>
         @for (refusal of e.refusals; track refusal.limit) {
           <div class="callout error" role="alert" data-test="estimate-refusal"><mat-icon aria-hidden="true">block</mat-icon><p>{{ refusal.message }}</p></div>
         }
@@ -117,6 +117,10 @@ export class EstimatePanel {
     const percent = (100 * e.cpuSeconds) / remaining;
     return percent < 0.1 && percent > 0 ? 'under 0.1 %' : `${percent < 10 ? percent.toFixed(1) : Math.round(percent)} %`;
   });
+  protected plural(count: number, noun: string): string {
+    return `${count} ${noun}${count === 1 ? '' : 's'}`;
+  }
+
   protected readonly allowanceLabel = computed(() => {
     const e = this.estimate();
     return e ? `This month the team used ${Math.round(this.usedPercent())} % of its CPU allowance; this sweep would take ${this.share()} of what remains.` : '';

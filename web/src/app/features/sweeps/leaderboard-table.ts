@@ -37,23 +37,13 @@ interface BoardRow extends LeaderboardEntry {
           <td mat-cell *matCellDef="let row" class="narrow">{{ row.size }}</td>
         </ng-container>
         <ng-container matColumnDef="energy">
-          <th mat-header-cell *matHeaderCellDef>Energy</th>
+          <th mat-header-cell *matHeaderCellDef>Energy: terms and coefficients (4 digits)</th>
           <td mat-cell *matCellDef="let row" class="energy">
-            <app-math [expression]="row.energy" [coordinates]="coordinates()" />
-          </td>
-        </ng-container>
-        <ng-container matColumnDef="coefficients">
-          <th mat-header-cell *matHeaderCellDef>Terms and coefficients</th>
-          <td mat-cell *matCellDef="let row">
-            <ul class="pairs">
-              @for (term of row.terms; track $index; let i = $index) {
-                <li><code>{{ term }}</code> <span class="value">{{ row.coefficients[i] | figure: 4 }}</span></li>
-              }
-            </ul>
+            <app-math [combination]="row" [coordinates]="coordinates()" [ariaLabel]="row.energy" />
           </td>
         </ng-container>
         <ng-container matColumnDef="rss">
-          <th mat-header-cell *matHeaderCellDef mat-sort-header class="numeric">Residual (sum of squares)</th>
+          <th mat-header-cell *matHeaderCellDef mat-sort-header class="numeric">Sum of squares</th>
           <td mat-cell *matCellDef="let row" class="numeric">{{ row.rss | figure: 4 }}</td>
         </ng-container>
         <ng-container matColumnDef="rmse">
@@ -72,10 +62,7 @@ interface BoardRow extends LeaderboardEntry {
     .head { display: flex; flex-wrap: wrap; gap: 8px; margin-bottom: 8px; }
     .scroller { overflow-x: auto; }
     .narrow { width: 48px; }
-    .energy { min-width: 260px; max-width: 520px; padding-top: 6px; padding-bottom: 6px; }
-    .pairs { display: flex; flex-wrap: wrap; gap: 2px 12px; margin: 0; padding: 0; list-style: none; font: var(--mat-sys-body-small); }
-    .pairs code { color: var(--mat-sys-on-surface-variant); }
-    .value { font-variant-numeric: tabular-nums; }
+    .energy { min-width: 320px; padding-top: 8px; padding-bottom: 8px; }
     .empty { padding: 16px; color: var(--mat-sys-on-surface-variant); }
     mat-button-toggle-group { --mat-button-toggle-height: 32px; font: var(--mat-sys-label-large); }
   `,
@@ -86,7 +73,7 @@ export class LeaderboardTable {
   readonly coordinates = input.required<readonly string[]>();
   private readonly sort = viewChild.required(MatSort);
 
-  protected readonly columns = ['rank', 'size', 'energy', 'coefficients', 'rss', 'rmse'];
+  protected readonly columns = ['rank', 'size', 'energy', 'rss', 'rmse'];
   protected readonly view = signal<'overall' | number>('overall');
   protected readonly sizes = computed(() => this.leaderboard().bySize.map((s) => s.size));
   protected readonly source = new MatTableDataSource<BoardRow>([]);

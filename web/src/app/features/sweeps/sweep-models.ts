@@ -32,8 +32,8 @@ import { MathFormula } from '../../shared/math/math-formula';
           <td mat-cell *matCellDef="let m" class="numeric">{{ m.size }}</td>
         </ng-container>
         <ng-container matColumnDef="energy">
-          <th mat-header-cell *matHeaderCellDef>Energy</th>
-          <td mat-cell *matCellDef="let m" class="energy"><app-math [expression]="m.energy" [coordinates]="coordinates()" /></td>
+          <th mat-header-cell *matHeaderCellDef>Energy (coefficients to 4 digits)</th>
+          <td mat-cell *matCellDef="let m" class="energy"><app-math [combination]="m" [coordinates]="coordinates()" [ariaLabel]="m.energy" /></td>
         </ng-container>
         <ng-container matColumnDef="train">
           <th mat-header-cell *matHeaderCellDef class="numeric">Training error</th>

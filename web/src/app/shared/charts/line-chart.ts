@@ -56,7 +56,7 @@ export class LineChart {
       animation: false,
       color: chartPalette,
       textStyle: { fontFamily: 'Roboto, sans-serif', color: chartInk.text },
-      grid: { left: 16, right: 24, top: legend ? 36 : 18, bottom: long ? 44 : 30, containLabel: true },
+      grid: { left: 16, right: 24, top: (legend ? 30 : 10) + (this.yLabel() ? 18 : 0), bottom: long ? 44 : 30, containLabel: true },
       legend: legend ? { top: 0, left: 0, icon: 'roundRect', itemWidth: 14, itemHeight: 4, textStyle: { color: chartInk.text } } : undefined,
       tooltip: {
         trigger: 'axis',
@@ -68,6 +68,8 @@ export class LineChart {
         nameLocation: 'middle',
         nameGap: 26,
         scale: !this.integerX(),
+        min: this.integerX() ? 'dataMin' : undefined,
+        max: this.integerX() ? 'dataMax' : undefined,
         minInterval: this.integerX() ? 1 : undefined,
         axisLine: { lineStyle: { color: chartInk.axis } },
         splitLine: { show: false },
@@ -80,7 +82,7 @@ export class LineChart {
         scale: true,
         axisLine: { show: false },
         splitLine: { lineStyle: { color: chartInk.grid } },
-        axisLabel: { formatter: (value: number) => formatFigure(value, 3) },
+        axisLabel: { formatter: (value: number) => formatFigure(value, 2) },
       },
       dataZoom: long ? [{ type: 'inside', xAxisIndex: 0, filterMode: 'none' }, { type: 'slider', height: 16, bottom: 4, showDetail: false }] : [],
       series: series.map((s, i) => ({

@@ -4,6 +4,7 @@ import { Pipe, type PipeTransform } from '@angular/core';
 export function formatDuration(seconds: number | null | undefined): string {
   if (seconds === null || seconds === undefined || !Number.isFinite(seconds)) return '–';
   const s = Math.max(0, seconds);
+  if (s > 0 && s < 0.01) return 'under 0.01 s';
   if (s < 10) return `${s < 1 ? s.toFixed(2) : s.toFixed(1)} s`;
   if (s < 60) return `${Math.round(s)} s`;
   const minutes = Math.floor(s / 60);

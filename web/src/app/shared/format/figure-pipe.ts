@@ -9,7 +9,10 @@ export function formatFigure(value: number | null | undefined, digits = 3): stri
   if (!Number.isFinite(value)) return String(value);
   if (value === 0) return '0';
   const magnitude = Math.abs(value);
-  if (magnitude < 1e-3 || magnitude >= 1e6) return value.toExponential(digits - 1).replace('e+', 'e');
+  if (magnitude < 1e-3 || magnitude >= 1e6) {
+    const [mantissa, exponent] = value.toExponential(digits - 1).split('e');
+    return `${String(Number(mantissa))}e${Number(exponent)}`;
+  }
   return String(Number(value.toPrecision(digits)));
 }
 

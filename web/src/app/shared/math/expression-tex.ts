@@ -1,6 +1,6 @@
 import { parseExpression } from '../../../../../shared/math/term-expression';
 import { TermSymbols } from '../../../../../shared/math/term-symbols';
-import { symbolLatexTable, termLatex } from '../../../../../shared/model/term-latex';
+import { numberLatex, symbolLatexTable, termLatex } from '../../../../../shared/model/term-latex';
 
 /*
  * Terms and energies in our notation (`dth^2*cos(th)`) as LaTeX, through the same parser and printer the
@@ -31,4 +31,22 @@ export function termProblem(text: string, coordinates: readonly string[]): strin
   } catch (error) {
     return error instanceof Error ? error.message : 'This term cannot be read.';
   }
+}
+
+/**
+ * LaTeX of sum_j c_j theta_j with each coefficient rounded to `digits` significant digits, for lists where
+ * the full-precision energy would not fit; a term that is itself a sum is put in parentheses.
+ */
+export function combinationTex(terms: readonly string[], coefficients: readonly number[], coordinates: readonly string[], digits = 4): string {
+  const symbols = new TermSymbols(coordinates);
+  const table = symbolLatexTable(coordinates, coordinates.map((c) => `u_${c}`));
+  const parts = terms.map((term, i) => {
+    const tree = parseExpression(term, symbols).tree;
+    const body = termLatex(tree, table);
+    const wrapped = tree.kind === 'add' || tree.kind === 'subtract' ? `\\left(${body}\\right)` : body;
+    const coefficient = coefficients[i] ?? 0;
+    const magnitude = numberLatex(Number(Math.abs(coefficient).toPrecision(digits)));
+    return { negative: coefficient < 0, text: `${magnitude} \\, ${wrapped}` };
+  });
+  return parts.map((part, i) => (i === 0 ? (part.negative ? `-${part.text}` : part.text) : `${part.negative ? '-' : '+'} ${part.text}`)).join(' ') || '0';
 }
