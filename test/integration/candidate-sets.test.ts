@@ -1,6 +1,7 @@
 import { expect } from 'chai';
 import { apiErrorSchema } from '../../shared/schemas/api-error.js';
 import { candidateSetListSchema, candidateSetSchema, generatedTermsSchema, termCheckSchema } from '../../shared/schemas/candidate-set.js';
+import { AuditEvent } from '../../api/src/entities/audit-event.js';
 import { CandidateSet } from '../../api/src/entities/candidate-set.js';
 import { createTeamWithUsers, signIn, type TestAgent, type TeamWithUsers } from '../support/fixtures.js';
 import { createProject } from '../support/sweep-scenario.js';
@@ -82,6 +83,8 @@ describe('candidate sets: terms checked on the server (/api/projects/:id/candida
     const set = candidateSetSchema.parse(await created.json());
     expect(set).to.include({ name: 'Cart-pole basics', candidateCount: 4 });
     expect(set.createdBy?.id).to.equal(team.analyst.id);
+    const audit = await app.orm.em.fork().findOne(AuditEvent, { action: 'candidate_set.created', targetId: set.id });
+    expect(audit?.actorId, 'the audit trail names the set and who created it').to.equal(team.analyst.id);
     expect((await analyst.post(`${base}/${projectId}/candidate-sets`, body)).status).to.equal(409);
 
     const replaced = await analyst.put(`/api/candidate-sets/${set.id}`, { ...body, terms: ['dx^2', 'dth^2', 'cos(th)'], reference: { term: 'dx^2', coefficient: 0.67 } });

@@ -48,7 +48,7 @@ export function loadWorkerConfig(env: Record<string, string | undefined> = proce
     shardSeconds,
     shardSubsets: env.CONSERVA_SHARD_SUBSETS ? integerFrom(env, 'CONSERVA_SHARD_SUBSETS', 0, 1) : null,
     shardExpireSeconds: integerFrom(env, 'CONSERVA_SHARD_EXPIRE_SECONDS', Math.max(300, Math.ceil(shardSeconds * 10)), 2),
-    shardRetries: integerFrom(env, 'CONSERVA_SHARD_RETRIES', 3, 0),
+    shardRetries: integerFrom(env, 'CONSERVA_SHARD_RETRIES', 5, 0),
     maintenanceSeconds: integerFrom(env, 'CONSERVA_QUEUE_MAINTENANCE_SECONDS', 30, 1),
     progressMs,
     smtpUrl: smtpUrlFrom(env, production),
