@@ -1,6 +1,8 @@
 import { expect } from 'chai';
 import { readFile } from 'node:fs/promises';
 import type { Browser, Page } from 'playwright-core';
+import { createLogger } from '../../api/src/logger.js';
+import { type Mailbox, startMailbox } from '../../api/src/mailbox/mailbox-server.js';
 import { binomial } from '../../shared/math/combinations.js';
 import { safetyCaution } from '../../shared/model/safety-caution.js';
 import type { AllowanceLimits } from '../../shared/schemas/allowance.js';
@@ -23,6 +25,7 @@ import { expectCleanPage } from './support/page-expectations.js';
 import { fetchFromPage } from './support/page-fetch.js';
 import { saveScreenshot, saveScreenshots } from './support/screenshot.js';
 import { openSignedIn } from './support/sign-in-as.js';
+import { unnamedControls } from './support/unnamed-controls.js';
 
 /** Limits far above what these sweeps need, so only the allowance test meets a limit. */
 const roomyAllowance: AllowanceLimits = { cpuSecondsPerMonth: 10_000_000, sweepsAtOnce: 50, subsetsPerSweep: 1e12 };
@@ -35,6 +38,15 @@ async function chooseOption(page: Page, scope: ReturnType<Page['locator']>, labe
   await scope.getByLabel(label, { exact: true }).focus();
   await page.keyboard.press('Enter');
   await page.getByRole('option', { name: option, exact: true }).click();
+}
+
+/**
+ * Saves the screen for people to review (at 1280 and, with `wide`, 1440 pixels) and checks that every
+ * control on it has a name a screen reader can announce.
+ */
+async function review(page: Page, name: string, wide = false): Promise<void> {
+  await (wide ? saveScreenshots : saveScreenshot)(page, name);
+  expect(await unnamedControls(page), `controls without a name on ${name}`).to.deep.equal([]);
 }
 
 async function setInput(scope: ReturnType<Page['locator']>, label: string, value: string): Promise<void> {
@@ -52,6 +64,7 @@ async function mapCartPole(page: Page): Promise<void> {
 describe('the whole job in the web app', function () {
   let app: TestApp;
   let worker: TestWorker;
+  let mailbox: Mailbox;
   let browser: Browser;
   let lab: TeamWithUsers;
   const tabs: GuardedPage[] = [];
@@ -65,14 +78,19 @@ describe('the whole job in the web app', function () {
   before(async function () {
     app = await startTestApp({ allowanceDefaults: roomyAllowance });
     lab = await createTeamWithUsers(app.orm, 'Quay crane lab');
+    mailbox = await startMailbox(app.orm, { port: 0, logger: createLogger('silent', 'mailbox-test') });
     // Shards of about 0.02 CPU seconds by the built-in rate: even a small sweep merges into its leaderboard
-    // several times, so its changes can be watched.
-    [worker, browser] = await Promise.all([startTestWorker({ threads: 1, env: { CONSERVA_SHARD_SECONDS: '0.02' } }), launchBrowser()]);
+    // several times, so its changes can be watched. Its e-mails go to the local mailbox.
+    [worker, browser] = await Promise.all([
+      startTestWorker({ threads: 1, smtpUrl: `smtp://127.0.0.1:${mailbox.port}`, env: { CONSERVA_SHARD_SECONDS: '0.02' } }),
+      launchBrowser(),
+    ]);
   });
 
   after(async function () {
     await browser?.close();
     await worker?.stop();
+    await mailbox?.close();
     await app?.close();
   });
 
@@ -100,11 +118,11 @@ describe('the whole job in the web app', function () {
       await page.getByRole('heading', { name: 'Quay crane trolley', level: 1 }).waitFor();
       projectUrl = new URL(page.url()).pathname.replace(/\/recordings$/, '');
       await page.getByRole('heading', { name: 'No recordings yet' }).waitFor();
-      await saveScreenshot(page, 'project-empty');
+      await review(page, 'project-empty');
 
       await page.getByRole('link', { name: 'Add the first recording' }).click();
       await page.getByRole('heading', { name: 'Add a recording', level: 1 }).waitFor();
-      await saveScreenshot(page, 'recording-upload');
+      await review(page, 'recording-upload');
 
       // Data row 5 of this file holds text where the sway angle belongs.
       const good = cartPoleCsv(cartPoleTrainingRuns[0]!);
@@ -125,7 +143,7 @@ describe('the whole job in the web app', function () {
       expect(text).to.contain('pole_angle_rad');
       const marked = page.locator('td.fault');
       expect(await marked.innerText()).to.equal('n/a');
-      await saveScreenshot(page, 'recording-upload-refused');
+      await review(page, 'recording-upload-refused');
 
       await page.getByRole('button', { name: 'Choose another file' }).click();
       await page.locator('input[type=file]').setInputFiles({ name: 'sway-run-1.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
@@ -133,7 +151,7 @@ describe('the whole job in the web app', function () {
       await mapCartPole(page);
       // The force column was recognised from its name and put on the trolley's coordinate.
       expect(await page.getByRole('listitem', { name: 'Coordinate 1' }).getByLabel('Force column', { exact: true }).innerText()).to.contain('cart_force_N');
-      await saveScreenshots(page, 'recording-mapping');
+      await review(page, 'recording-mapping', true);
       await page.getByRole('button', { name: 'Upload recording' }).click();
 
       await page.getByRole('heading', { name: 'sway-run-1', level: 1 }).waitFor();
@@ -142,7 +160,7 @@ describe('the whole job in the web app', function () {
       expect(stats).to.match(/Sample rate\s+100 per s/);
       await page.locator('app-line-chart canvas').first().waitFor();
       expect(await page.locator('app-line-chart').count(), 'one plot per channel: x, th, force on x').to.equal(3);
-      await saveScreenshots(page, 'recording');
+      await review(page, 'recording', true);
       expectCleanPage(tab, [refusedUpload]);
     });
 
@@ -156,7 +174,7 @@ describe('the whole job in the web app', function () {
       const tab = await open(lab.analyst.email, lab.password);
       const { page } = tab;
       await page.goto(`${projectUrl}/candidate-sets`);
-      await page.getByRole('link', { name: 'Build a candidate set' }).click();
+      await page.locator('app-project-candidate-sets').getByRole('link', { name: 'Build a candidate set' }).click();
       await page.getByRole('heading', { name: 'New candidate set', level: 1 }).waitFor();
       await page.getByLabel('Name', { exact: true }).fill('Trolley and sway, degree 4');
       await chooseOption(page, page.locator('app-generator-options'), 'Coordinate powers', 'up to degree 4');
@@ -191,7 +209,7 @@ describe('the whole job in the web app', function () {
       await page.getByRole('button', { name: 'Add', exact: true }).click();
       const repeat = rows.last();
       await repeat.locator('.verdict.excluded').waitFor({ timeout: 20_000 });
-      await saveScreenshots(page, 'candidate-set-editor');
+      await review(page, 'candidate-set-editor', true);
       await repeat.getByRole('button', { name: 'Remove 2*cos(th)' }).click();
       expect(await rows.count()).to.equal(34);
 
@@ -217,7 +235,7 @@ describe('the whole job in the web app', function () {
       const subsets = page.locator('[data-test=estimate-subsets]');
       await eventually('the estimate', async () => ((await subsets.innerText().catch(() => '')) === expected.toLocaleString('en-GB') ? true : undefined), 20_000);
       expect(await page.locator('[data-test=estimate-share]').innerText()).to.match(/%$/);
-      await saveScreenshots(page, 'launch');
+      await review(page, 'launch', true);
 
       await page.locator('[data-test=launch]').click();
       await page.locator('[data-test=leaderboard]').waitFor();
@@ -236,7 +254,7 @@ describe('the whole job in the web app', function () {
             if (version) versions.add(version);
             if (!screenshotWhileRunning && (await page.locator('[data-test=leaderboard-row]').count()) > 0) {
               screenshotWhileRunning = true;
-              await saveScreenshots(page, 'sweep-running');
+              await review(page, 'sweep-running', true);
             }
           }
           return state.includes('Finished') ? true : undefined;
@@ -247,7 +265,7 @@ describe('the whole job in the web app', function () {
       expect(versions.size, `leaderboard versions seen while running: ${[...versions].join(' | ')}`).to.be.greaterThan(1);
       await page.locator('[data-test=models]').waitFor({ timeout: 60_000 });
       expect(await page.locator('[data-test=progress-percent]').innerText()).to.equal('100 %');
-      await saveScreenshots(page, 'sweep-finished');
+      await review(page, 'sweep-finished', true);
 
       // Sorting the leaderboard by size puts the smallest models first.
       await page.getByRole('button', { name: 'Size', exact: true }).first().click();
@@ -267,7 +285,7 @@ describe('the whole job in the web app', function () {
       await page.locator('[data-test=energy] .katex').waitFor({ timeout: 30_000 });
       await page.locator('[data-test=coefficients]').waitFor();
       await page.locator('app-recording-check-view app-line-chart canvas').first().waitFor();
-      await saveScreenshots(page, 'model');
+      await review(page, 'model', true);
 
       const download = page.waitForEvent('download');
       await page.locator('[data-test=export-python]').click();
@@ -314,7 +332,7 @@ describe('the whole job in the web app', function () {
       await page.locator('[data-test=cancel-sweep]').click();
       const confirm = page.getByRole('dialog');
       await confirm.getByRole('heading', { name: 'Cancel this sweep?' }).waitFor();
-      await saveScreenshot(page, 'sweep-cancel-confirmation');
+      await review(page, 'sweep-cancel-confirmation');
       await confirm.getByRole('button', { name: 'Cancel sweep' }).click();
       await eventually('the cancelled state', async () => ((await page.locator('app-sweep-state').first().innerText()).includes('Cancelled') ? true : undefined), 30_000);
       expect((await readSweep(agent, sweep.id)).state).to.equal('cancelled');
@@ -337,7 +355,7 @@ describe('the whole job in the web app', function () {
       await page.locator('app-project-recordings table').waitFor();
       expect(await page.getByText('Read-only').count()).to.equal(1);
       expect(await page.getByRole('link', { name: /Add recording/ }).count()).to.equal(0);
-      await saveScreenshot(page, 'viewer-recordings');
+      await review(page, 'viewer-recordings');
 
       await page.goto(`${base}/sweeps`);
       await page.locator('app-project-sweeps table').waitFor();
@@ -349,12 +367,12 @@ describe('the whole job in the web app', function () {
       expect(await page.getByRole('radiogroup', { name: /^Role of / }).count(), 'role toggles').to.equal(0);
       expect(await page.getByRole('button', { name: /^Remove / }).count(), 'remove buttons').to.equal(0);
       expect(await page.getByLabel('Add a term').count(), 'term field').to.equal(0);
-      await saveScreenshot(page, 'viewer-candidate-set');
+      await review(page, 'viewer-candidate-set');
 
       await page.goto(`${base}/sweeps/${running.id}`);
       await page.locator('[data-test=leaderboard]').waitFor();
       expect(await page.locator('[data-test=cancel-sweep]').count(), 'cancel control').to.equal(0);
-      await saveScreenshot(page, 'viewer-sweep');
+      await review(page, 'viewer-sweep');
 
       // The launch page itself is out of reach: the viewer lands on the project instead.
       await page.goto(`${base}/sweeps/new`);
@@ -381,6 +399,9 @@ describe('the whole job in the web app', function () {
       const quota = await createTeamWithUsers(app.orm, 'Harbour quota lab');
       const agent = await signIn(app.baseUrl, quota.analyst.email, quota.password);
       const project = await setUpCartPoleProject(agent, 'Spreader sway');
+      // A first small sweep runs to its end: the team has used some CPU time, and its launcher got an e-mail.
+      const first = await launchSweep(agent, project.projectId, project.launch(1, 'First look'));
+      await eventually('the first sweep to finish', async () => ((await readSweep(agent, first.id)).state === 'finished' ? true : undefined), 120_000, 250);
 
       // The analyst prepares a launch while the allowance still allows it.
       const analystTab = await open(quota.analyst.email, quota.password);
@@ -395,10 +416,10 @@ describe('the whole job in the web app', function () {
       await admin.getByRole('link', { name: 'Administration' }).click();
       await admin.getByRole('heading', { name: 'Administration', level: 1 }).waitFor();
       await admin.locator('app-users-panel table').waitFor();
-      await saveScreenshot(admin, 'admin-users');
+      await review(admin, 'admin-users');
       await admin.getByRole('tab', { name: /Teams/ }).click();
       await admin.locator('app-teams-panel table').waitFor();
-      await saveScreenshot(admin, 'admin-teams');
+      await review(admin, 'admin-teams');
       await admin.getByRole('tab', { name: /Allowances/ }).click();
       const card = admin.getByRole('listitem', { name: `Allowance of ${quota.team.name}` });
       await card.getByRole('button', { name: 'Change limits' }).click();
@@ -408,13 +429,22 @@ describe('the whole job in the web app', function () {
       await card.getByLabel('CPU hours per month').fill('0');
       await card.getByRole('button', { name: 'Save limits' }).click();
       await eventually('the saved limit', async () => ((await card.locator('[data-test=cpu-limit]').innerText()).startsWith('0') ? true : undefined), 20_000);
-      await saveScreenshots(admin, 'admin-allowances');
+      await admin.locator('mat-snack-bar-container').getByRole('button', { name: 'Close' }).click();
+      await review(admin, 'admin-allowances', true);
       await admin.getByRole('tab', { name: /Audit log/ }).click();
       await admin.locator('[data-test=audit-log]').getByText('Allowance changed').first().waitFor();
-      await saveScreenshot(admin, 'admin-audit');
+      await review(admin, 'admin-audit');
+      // The end of the first sweep was announced by e-mail to its launcher, through the local mailbox.
       await admin.getByRole('tab', { name: /Mailbox/ }).click();
-      await admin.locator('app-mailbox-panel .bar').waitFor();
-      await saveScreenshot(admin, 'admin-mailbox');
+      const message = admin.locator('app-mailbox-panel .list button', { hasText: quota.analyst.email });
+      await eventually('the e-mail in the mailbox', async () => {
+        if ((await message.count()) > 0) return true;
+        await admin.getByRole('button', { name: 'Refresh' }).click();
+        return undefined;
+      }, 30_000, 500);
+      await message.first().click();
+      expect(await admin.locator('app-mailbox-panel .reader').innerText()).to.contain('First look');
+      await review(admin, 'admin-mailbox');
 
       const answer = analyst.waitForResponse((r) => r.request().method() === 'POST' && /\/sweeps$/.test(new URL(r.url()).pathname));
       await analyst.locator('[data-test=launch]').click();
@@ -425,7 +455,7 @@ describe('the whole job in the web app', function () {
       const shown = analyst.locator('[data-test=launch-refusal]');
       await shown.waitFor();
       expect(await shown.innerText()).to.contain(body.error.message);
-      await saveScreenshot(analyst, 'launch-refused');
+      await review(analyst, 'launch-refused');
       expectCleanPage(analystTab, [/status of 409 /]);
       expectCleanPage(adminTab);
     });

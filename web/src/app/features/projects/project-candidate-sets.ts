@@ -17,7 +17,7 @@ import { ProjectContext } from './project-context';
   template: `
     <div class="bar">
       <p class="section-note">The terms a sweep may combine into an energy, the known terms every model keeps, and the reference term.</p>
-      @if (canEdit()) {
+      @if (canEdit() && context.candidateSets()?.length) {
         <a mat-flat-button routerLink="new"><mat-icon>add</mat-icon> New candidate set</a>
       }
     </div>

@@ -6,6 +6,7 @@ import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { Session } from '../../core/session';
 import { Breadcrumbs } from '../../shared/breadcrumbs';
 import { ProjectContext } from './project-context';
+import { ProjectNextStep } from './project-next-step';
 
 /**
  * One project: its name and description, and tabs for the three steps of the job (recordings, candidate
@@ -13,7 +14,7 @@ import { ProjectContext } from './project-context';
  */
 @Component({
   selector: 'app-project-page',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatProgressBarModule, MatTabsModule, Breadcrumbs],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatProgressBarModule, MatTabsModule, Breadcrumbs, ProjectNextStep],
   providers: [ProjectContext],
   template: `
     @if (context.failure(); as message) {
@@ -32,6 +33,7 @@ import { ProjectContext } from './project-context';
         }
       </header>
 
+      <app-project-next-step />
       <nav mat-tab-nav-bar [tabPanel]="panel" aria-label="Project sections" class="tabs">
         @for (tab of tabs(); track tab.path) {
           <a mat-tab-link [routerLink]="tab.path" routerLinkActive #active="routerLinkActive" [active]="active.isActive">

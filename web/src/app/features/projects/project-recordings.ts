@@ -19,7 +19,7 @@ import { ProjectContext } from './project-context';
   template: `
     <div class="bar">
       <p class="section-note">Trajectories of the mechanism: time, the coordinates and, when measured, the forces on them.</p>
-      @if (canEdit()) {
+      @if (canEdit() && context.recordings()?.length) {
         <a mat-flat-button routerLink="new"><mat-icon>upload_file</mat-icon> Add recording</a>
       }
     </div>
