@@ -1,7 +1,7 @@
 /**
- * `npm run migration:create [-- name]`: compares the entities with the committed migrations' snapshot and
- * writes a new migration into api/src/db/migrations. Uses DATABASE_URL or the private development cluster,
- * which it migrates first so the diff starts from the committed state.
+ * `npm run migration:create [-- name]`: compares the entities with the database after the committed migrations
+ * and writes a new migration into api/src/db/migrations. Uses DATABASE_URL or the private development cluster,
+ * which it migrates first so the diff starts from the committed state (no snapshot file; orm-config.ts says why).
  */
 import { startDevDatabase } from '../../../ops/dev-database.js';
 import { openOrm } from './open-orm.js';

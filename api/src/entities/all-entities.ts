@@ -7,6 +7,7 @@ import { RecordingSamples } from './recording-samples.js';
 import { Shard } from './shard.js';
 import { SubsetThroughput } from './subset-throughput.js';
 import { Sweep } from './sweep.js';
+import { SweepModel } from './sweep-model.js';
 import { Team } from './team.js';
 import { TeamAllowance } from './team-allowance.js';
 import { UsageCharge } from './usage-charge.js';
@@ -23,6 +24,7 @@ export const allEntities = [
   RecordingSamples,
   CandidateSet,
   Sweep,
+  SweepModel,
   Shard,
   TeamAllowance,
   UsageCharge,
