@@ -30,6 +30,8 @@ export interface PreparedDiscovery {
   /** Subsets in that range. */
   total: number;
   problem: GramProblem;
+  /** Norms of the training columns, by which `problem` is scaled (buildGramProblem). */
+  scales: Float64Array;
   excluded: ExcludedTerm[];
   warnings: string[];
 }
@@ -66,7 +68,7 @@ export function prepareDiscovery(settings: SweepSettings, recordings: readonly R
   const sizes = sizeRange(settings, candidateCount, training.knownCount, training.rowCount, warnings);
   checkKnownColumns(training);
   const validation = validationSignals.length > 0 ? buildSystemFor(settings, validationSignals, training, set.reference) : null;
-  const { problem } = buildGramProblem(training.columns, training.rhs, training.knownCount);
+  const { problem, scales } = buildGramProblem(training.columns, training.rhs, training.knownCount);
   return {
     symbols,
     set,
@@ -80,6 +82,7 @@ export function prepareDiscovery(settings: SweepSettings, recordings: readonly R
     sizes,
     total: countSubsets(candidateCount, sizes.min, sizes.max),
     problem,
+    scales,
     excluded,
     warnings,
   };

@@ -1,12 +1,14 @@
-import { DiscoveryInputError } from '../math/discovery-input-error.js';
 import { prepareDiscovery, type PreparedDiscovery } from '../math/discovery-preparation.js';
+import { discoveryResultOf } from '../math/discovery-result-assembly.js';
 import { selectModels } from '../math/model-selection.js';
 import type { Recording } from '../math/recording.js';
 import type { DiscoveryResult } from '../schemas/discovery-result.js';
 import type { SweepSettings } from '../schemas/sweep-description.js';
 import { encodeProblemData, type ProblemMeta } from './problem-encoding.js';
+import { refusalOf, type StepAnswer } from './step-answer.js';
 import { leaderboardOutcome, type StoredLeaderboard } from './stored-leaderboard.js';
-import { sweepResult } from './sweep-result.js';
+
+export type { StepAnswer } from './step-answer.js';
 
 /** What the prepare step stores on a sweep: plain data only, so it can come back from a worker thread. */
 export interface PreparedSweep {
@@ -19,26 +21,13 @@ export interface PreparedSweep {
   warnings: string[];
 }
 
-/** An outcome, or the engine's refusal of the input in words (errors do not cross threads as classes). */
-export type StepAnswer<T> = { ok: T } | { refused: string };
-
-function refusalOf<T>(run: () => T): StepAnswer<T> {
-  try {
-    return { ok: run() };
-  } catch (error) {
-    if (error instanceof DiscoveryInputError) return { refused: error.message };
-    throw error;
-  }
-}
-
 function problemMetaOf(prepared: PreparedDiscovery, referenceCoefficient: number | undefined): ProblemMeta {
   const reference = prepared.set.reference;
   return {
     columnCount: prepared.problem.columnCount,
     knownCount: prepared.problem.knownCount,
     yty: prepared.problem.yty,
-    // The norms gram-problem.ts scaled by, summed in the same order, so they are the same doubles.
-    scales: prepared.training.columns.map((column) => Math.sqrt(column.reduce((sum, v) => sum + v * v, 0))),
+    scales: Array.from(prepared.scales),
     terms: prepared.training.terms.map((term) => term.text),
     reference: reference ? { term: reference.text, coefficient: referenceCoefficient! } : null,
     rowCount: prepared.training.rowCount,
@@ -76,6 +65,6 @@ export function finishSweep(
   return refusalOf(() => {
     const prepared = prepareDiscovery(settings, recordings);
     const outcome = leaderboardOutcome(board, counts);
-    return sweepResult(settings, recordings, prepared, outcome, selectModels(prepared, settings, outcome), seconds);
+    return discoveryResultOf(settings, recordings, prepared, outcome, selectModels(prepared, settings, outcome), seconds);
   });
 }

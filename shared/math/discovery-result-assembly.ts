@@ -1,17 +1,18 @@
 import { safetyCaution } from '../model/safety-caution.js';
-import type { PreparedDiscovery } from '../math/discovery-preparation.js';
-import type { ModelSelection } from '../math/model-selection.js';
-import type { Recording } from '../math/recording.js';
-import { describeEstimator } from '../math/recording-signals.js';
-import type { SweepOutcome } from '../math/sweep-problem.js';
 import type { DiscoveryResult } from '../schemas/discovery-result.js';
 import type { SweepSettings } from '../schemas/sweep-description.js';
+import type { PreparedDiscovery } from './discovery-preparation.js';
+import type { ModelSelection } from './model-selection.js';
+import type { Recording } from './recording.js';
+import { describeEstimator } from './recording-signals.js';
+import type { SweepOutcome } from './sweep-problem.js';
 
 /**
- * The finished sweep's result in the command line's shape (shared/math/discover.ts assembles the same fields
- * from the same prepare and finish steps), so the service and the command line report alike.
+ * The result of a discovery (shared/schemas/discovery-result.ts) from its prepare step, the sweep's outcome and
+ * the finish step. The command line (discover.ts) and the sweep service (shared/sweeps/prepared-sweep.ts)
+ * both report through this one function, so they report alike.
  */
-export function sweepResult(
+export function discoveryResultOf(
   settings: SweepSettings,
   recordings: readonly Recording[],
   prepared: PreparedDiscovery,
@@ -21,7 +22,6 @@ export function sweepResult(
 ): DiscoveryResult {
   const best = selection.ranked[0];
   const reference = prepared.set.reference;
-  const optional = selection as ModelSelection & { simplification?: unknown };
   return {
     evaluated: outcome.evaluated,
     rejected: outcome.rejected,
@@ -37,15 +37,25 @@ export function sweepResult(
     rankedBy: selection.rule.criterion,
     rankingTolerance: selection.rule.tolerance,
     models: selection.ranked.map(({ columns: _columns, ...model }) => model),
-    ...(optional.simplification !== undefined ? { simplification: optional.simplification } : {}),
+    simplification: selection.simplification,
     front: selection.front,
     best: best
-      ? { terms: best.terms, coefficients: best.coefficients, energy: best.energy, lagrangian: best.lagrangian, notIdentifiable: best.notIdentifiable }
+      ? {
+          terms: best.terms,
+          coefficients: best.coefficients,
+          energy: best.energy,
+          lagrangian: best.lagrangian,
+          notIdentifiable: best.notIdentifiable,
+        }
       : null,
     excluded: prepared.excluded,
-    warnings: [...prepared.warnings, ...(outcome.stopped ? ['The sweep was stopped before every subset was evaluated.'] : []), ...selection.warnings],
+    warnings: [
+      ...prepared.warnings,
+      ...(outcome.stopped ? ['The sweep was stopped before every subset was evaluated.'] : []),
+      ...selection.warnings,
+    ],
     caution: safetyCaution,
-  } as DiscoveryResult;
+  };
 }
 
 function signalReport(settings: SweepSettings, recordings: readonly Recording[], needAccelerations: boolean): DiscoveryResult['signals'] {
