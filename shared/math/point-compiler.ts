@@ -1,3 +1,4 @@
+import { integerPower } from './integer-power.js';
 import type { TermTree } from './term-tree.js';
 
 /** A compiled expression evaluated at one point: the values of its symbols by slot, as given at compile time. */
@@ -6,7 +7,7 @@ export type PointFunction = (values: Float64Array) => number;
 /**
  * Compiles a whitelisted tree into nested closures that evaluate it at one point, for the inner loop of a
  * simulation: symbols are resolved to slots of a value array once, so a call allocates nothing. Integer powers
- * use the same repeated squaring as the column compiler (term-compiler.ts), so both give the same numbers.
+ * use the same repeated squaring as the column compiler (integer-power.ts), so both give the same numbers.
  */
 export function compilePoint(tree: TermTree, slots: ReadonlyMap<string, number>): PointFunction {
   switch (tree.kind) {
@@ -53,19 +54,4 @@ export function compilePoint(tree: TermTree, slots: ReadonlyMap<string, number>)
       return (v) => a(v) / b(v);
     }
   }
-}
-
-/** x^n by repeated squaring (the same steps as term-compiler.ts and the exported code). */
-export function integerPower(exponent: number): (x: number) => number {
-  const magnitude = Math.abs(exponent);
-  if (magnitude === 2) return exponent > 0 ? (x) => x * x : (x) => 1 / (x * x);
-  return (x) => {
-    let result = 1;
-    let base = x;
-    for (let n = magnitude; n > 0; n >>= 1) {
-      if (n & 1) result *= base;
-      base *= base;
-    }
-    return exponent < 0 ? 1 / result : result;
-  };
 }

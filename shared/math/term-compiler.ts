@@ -1,3 +1,4 @@
+import { integerPower } from './integer-power.js';
 import type { TermTree } from './term-tree.js';
 
 /** Sample columns by symbol name (`th`, `dth`, `ddth`), all of the same length. */
@@ -46,21 +47,6 @@ function compilePart(tree: TermTree): Part {
     case 'divide':
       return combineParts(compilePart(tree.left), compilePart(tree.right), (a, b) => a / b);
   }
-}
-
-/** x^n by repeated squaring, so small integer powers cost a few multiplications and stay exact where x*x is. */
-function integerPower(exponent: number): (x: number) => number {
-  const magnitude = Math.abs(exponent);
-  if (magnitude === 2) return exponent > 0 ? (x) => x * x : (x) => 1 / (x * x);
-  return (x) => {
-    let result = 1;
-    let base = x;
-    for (let n = magnitude; n > 0; n >>= 1) {
-      if (n & 1) result *= base;
-      base *= base;
-    }
-    return exponent < 0 ? 1 / result : result;
-  };
 }
 
 function mapPart(part: Part, f: (a: number) => number): Part {

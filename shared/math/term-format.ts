@@ -1,6 +1,7 @@
 import type { TermTree } from './term-tree.js';
 
-const precedence = {
+/** How tightly each operation binds when printed, loosest first; numbers, symbols and functions are atoms. */
+export const termPrecedence = {
   add: 1,
   subtract: 1,
   multiply: 2,
@@ -10,16 +11,17 @@ const precedence = {
   atom: 5,
 } as const;
 
-function precedenceOf(tree: TermTree): number {
+/** The binding of a tree's outermost operation; a negative number binds like a negation. */
+export function precedenceOf(tree: TermTree): number {
   switch (tree.kind) {
     case 'number':
-      return tree.value < 0 || Object.is(tree.value, -0) ? precedence.negate : precedence.atom;
+      return tree.value < 0 || Object.is(tree.value, -0) ? termPrecedence.negate : termPrecedence.atom;
     case 'symbol':
     case 'sin':
     case 'cos':
-      return precedence.atom;
+      return termPrecedence.atom;
     default:
-      return precedence[tree.kind];
+      return termPrecedence[tree.kind];
   }
 }
 
@@ -38,15 +40,15 @@ export function formatTerm(tree: TermTree): string {
     case 'cos':
       return `${tree.kind}(${formatTerm(tree.arg)})`;
     case 'negate':
-      return `-${wrap(tree.arg, precedenceOf(tree.arg) < precedence.power)}`;
+      return `-${wrap(tree.arg, precedenceOf(tree.arg) < termPrecedence.power)}`;
     case 'power': {
       const exponent = tree.exponent < 0 ? `(${tree.exponent})` : String(tree.exponent);
-      return `${wrap(tree.base, precedenceOf(tree.base) <= precedence.power)}^${exponent}`;
+      return `${wrap(tree.base, precedenceOf(tree.base) <= termPrecedence.power)}^${exponent}`;
     }
     default: {
-      const own = precedence[tree.kind];
+      const own = termPrecedence[tree.kind];
       const left = wrap(tree.left, precedenceOf(tree.left) < own);
-      const right = wrap(tree.right, precedenceOf(tree.right) <= own || precedenceOf(tree.right) === precedence.negate);
+      const right = wrap(tree.right, precedenceOf(tree.right) <= own || precedenceOf(tree.right) === termPrecedence.negate);
       const symbol = { add: ' + ', subtract: ' - ', multiply: '*', divide: '/' }[tree.kind];
       return `${left}${symbol}${right}`;
     }
@@ -60,5 +62,5 @@ function wrap(tree: TermTree, parenthesize: boolean): string {
 
 /** True when the printed term needs parentheses to be multiplied by a coefficient (`c*(x + y)`). */
 export function needsParenthesesAsFactor(tree: TermTree): boolean {
-  return precedenceOf(tree) < precedence.multiply || precedenceOf(tree) === precedence.negate;
+  return precedenceOf(tree) < termPrecedence.multiply || precedenceOf(tree) === termPrecedence.negate;
 }

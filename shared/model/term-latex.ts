@@ -1,3 +1,4 @@
+import { precedenceOf, termPrecedence } from '../math/term-format.js';
 import type { TermTree } from '../math/term-tree.js';
 
 /*
@@ -62,21 +63,6 @@ export function numberLatex(value: number): string {
   return `${match[1]} \\cdot 10^{${Number(match[2])}}`;
 }
 
-const precedence = { add: 1, subtract: 1, multiply: 2, divide: 2, negate: 3, power: 4, atom: 5 } as const;
-
-function precedenceOf(tree: TermTree): number {
-  switch (tree.kind) {
-    case 'number':
-      return tree.value < 0 || Object.is(tree.value, -0) ? precedence.negate : precedence.atom;
-    case 'symbol':
-    case 'sin':
-    case 'cos':
-      return precedence.atom;
-    default:
-      return precedence[tree.kind];
-  }
-}
-
 /** LaTeX of a tree, with symbols printed through `symbols` (symbolLatexTable); unknown names print as they are. */
 export function termLatex(tree: TermTree, symbols: ReadonlyMap<string, string>): string {
   const recurse = (t: TermTree) => termLatex(t, symbols);
@@ -90,18 +76,18 @@ export function termLatex(tree: TermTree, symbols: ReadonlyMap<string, string>):
     case 'cos':
       return `\\${tree.kind}\\left(${recurse(tree.arg)}\\right)`;
     case 'negate':
-      return `-${wrap(tree.arg, precedenceOf(tree.arg) < precedence.multiply)}`;
+      return `-${wrap(tree.arg, precedenceOf(tree.arg) < termPrecedence.multiply)}`;
     case 'power': {
       if (tree.base.kind === 'sin' || tree.base.kind === 'cos') {
         return `\\${tree.base.kind}^{${tree.exponent}}\\left(${recurse(tree.base.arg)}\\right)`;
       }
-      return `${wrap(tree.base, precedenceOf(tree.base) <= precedence.power)}^{${tree.exponent}}`;
+      return `${wrap(tree.base, precedenceOf(tree.base) <= termPrecedence.power)}^{${tree.exponent}}`;
     }
     case 'divide':
       return `\\frac{${recurse(tree.left)}}{${recurse(tree.right)}}`;
     case 'multiply': {
-      const left = wrap(tree.left, precedenceOf(tree.left) < precedence.multiply);
-      const right = wrap(tree.right, precedenceOf(tree.right) <= precedence.multiply || precedenceOf(tree.right) === precedence.negate);
+      const left = wrap(tree.left, precedenceOf(tree.left) < termPrecedence.multiply);
+      const right = wrap(tree.right, precedenceOf(tree.right) <= termPrecedence.multiply || precedenceOf(tree.right) === termPrecedence.negate);
       // A number on the right would run into the one before it: write the product sign there.
       const sign = startsWithDigit(right) ? ' \\cdot ' : ' \\, ';
       return `${left}${sign}${right}`;
@@ -109,7 +95,7 @@ export function termLatex(tree: TermTree, symbols: ReadonlyMap<string, string>):
     case 'add':
     case 'subtract': {
       const left = recurse(tree.left);
-      const right = wrap(tree.right, precedenceOf(tree.right) <= precedence.add || precedenceOf(tree.right) === precedence.negate);
+      const right = wrap(tree.right, precedenceOf(tree.right) <= termPrecedence.add || precedenceOf(tree.right) === termPrecedence.negate);
       return `${left} ${tree.kind === 'add' ? '+' : '-'} ${right}`;
     }
   }

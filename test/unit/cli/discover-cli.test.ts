@@ -1,5 +1,4 @@
 import { expect } from 'chai';
-import { execFile } from 'node:child_process';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -7,26 +6,7 @@ import { discoveryResultSchema } from '../../../shared/schemas/discovery-result.
 import { pendulumTorque, forcesOf } from '../../support/mechanisms/forcing.js';
 import { simplePendulum } from '../../support/mechanisms/handbook-mechanisms.js';
 import { recordingToCsv, simulateRecording } from '../../support/mechanisms/simulate-recording.js';
-
-const root = path.resolve(import.meta.dirname, '../../..');
-
-interface Run {
-  status: number;
-  stdout: string;
-  stderr: string;
-}
-
-/** Runs the command line as scripts outside the project do (through tsx, as the npm script does). */
-function conserva(args: string[]): Promise<Run> {
-  return new Promise((resolve) => {
-    execFile(
-      process.execPath,
-      ['--import', 'tsx', path.join(root, 'worker/src/cli/main.ts'), ...args],
-      { cwd: root, encoding: 'utf8', timeout: 60_000 },
-      (error, stdout, stderr) => resolve({ status: error ? Number(error.code ?? 1) : 0, stdout, stderr }),
-    );
-  });
-}
+import { runConserva, type CliRun } from '../../support/run-cli.js';
 
 /** A forced pendulum description over one CSV; `change` edits the description, `csv` replaces the data. */
 function writeCase(dir: string, change: (d: Record<string, unknown>) => void = () => {}, csv?: string): string {
@@ -126,7 +106,7 @@ describe('conserva discover (command line)', function () {
         fragments: ['not valid JSON'],
       },
     ];
-    const results = new Map<string, Run>();
+    const results = new Map<string, CliRun>();
     let folder: string;
 
     // The runs are independent processes: start them a few at a time so the file takes less wall time.
@@ -139,7 +119,7 @@ describe('conserva discover (command line)', function () {
       });
       const worker = async () => {
         for (let next = queue.shift(); next; next = queue.shift()) {
-          results.set(next.title, await conserva(['discover', next.file, '--json']));
+          results.set(next.title, await runConserva(['discover', next.file, '--json']));
         }
       };
       await Promise.all([worker(), worker(), worker()]);
@@ -188,7 +168,7 @@ describe('conserva discover (command line)', function () {
     }
 
     it('prints one JSON object of the documented shape whose best energy is the handbook one', async () => {
-      const run = await conserva(['discover', writePendulum(), '--json']);
+      const run = await runConserva(['discover', writePendulum(), '--json']);
       expect(run.status, run.stderr).to.equal(0);
       expect(run.stderr).to.contain('sweep:');
       const result = discoveryResultSchema.parse(JSON.parse(run.stdout));
@@ -210,7 +190,7 @@ describe('conserva discover (command line)', function () {
     });
 
     it('prints a readable table without --json', async () => {
-      const run = await conserva(['discover', writePendulum()]);
+      const run = await runConserva(['discover', writePendulum()]);
       expect(run.status, run.stderr).to.equal(0);
       expect(run.stdout).to.contain('train rmse').and.to.contain('Best energy:').and.to.contain('Caution:');
       expect(() => JSON.parse(run.stdout)).to.throw();
@@ -218,7 +198,7 @@ describe('conserva discover (command line)', function () {
   });
 
   it('prints usage with --help and exits 0', async () => {
-    const run = await conserva(['--help']);
+    const run = await runConserva(['--help']);
     expect(run.status).to.equal(0);
     expect(run.stdout).to.contain('conserva discover <description.json> [--json]');
   });

@@ -1,5 +1,4 @@
 import { expect } from 'chai';
-import { execFile } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -8,27 +7,8 @@ import { simulationResultSchema } from '../../../shared/schemas/simulation-resul
 import { forcesOf, pendulumTorque } from '../../support/mechanisms/forcing.js';
 import { simplePendulum } from '../../support/mechanisms/handbook-mechanisms.js';
 import { recordingToCsv, simulateRecording } from '../../support/mechanisms/simulate-recording.js';
+import { runConserva, type CliRun } from '../../support/run-cli.js';
 import { handbookModelDocument } from '../model/handbook-model.js';
-
-const root = path.resolve(import.meta.dirname, '../../..');
-
-interface Run {
-  status: number;
-  stdout: string;
-  stderr: string;
-}
-
-/** Runs the command line as scripts outside the project do (through tsx, as the npm script does). */
-function conserva(args: string[]): Promise<Run> {
-  return new Promise((resolve) => {
-    execFile(
-      process.execPath,
-      ['--import', 'tsx', path.join(root, 'worker/src/cli/main.ts'), ...args],
-      { cwd: root, encoding: 'utf8', timeout: 60_000 },
-      (error, stdout, stderr) => resolve({ status: error ? Number(error.code ?? 1) : 0, stdout, stderr }),
-    );
-  });
-}
 
 // The model is the handbook pendulum (Landau & Lifshitz, Mechanics, sec. 5, problem 1 with m2 = 0); the
 // recordings are simulated from its hand-written equation of motion with our parameters.
@@ -64,7 +44,7 @@ describe('conserva simulate (command line)', function () {
   const file = (name: string) => path.join(dir, name);
 
   it('prints one JSON object of the documented shape: the handbook model follows its own recording', async () => {
-    const run = await conserva(['simulate', file('model.json'), file('swing.csv'), '--json', '--threshold', '0.001']);
+    const run = await runConserva(['simulate', file('model.json'), file('swing.csv'), '--json', '--threshold', '0.001']);
     expect(run.status, run.stderr).to.equal(0);
     const result = simulationResultSchema.parse(JSON.parse(run.stdout));
     expect(result.columns).to.deep.equal({ time: 'time', th: 'th', u_th: 'u_th' });
@@ -81,7 +61,7 @@ describe('conserva simulate (command line)', function () {
   });
 
   it('maps other column names with --columns and thins the trajectory with --points', async () => {
-    const run = await conserva(['simulate', file('model.json'), file('renamed.csv'), '--json', '--columns', 'time=t,th=angle,u_th=torque', '--points', '50']);
+    const run = await runConserva(['simulate', file('model.json'), file('renamed.csv'), '--json', '--columns', 'time=t,th=angle,u_th=torque', '--points', '50']);
     expect(run.status, run.stderr).to.equal(0);
     const result = simulationResultSchema.parse(JSON.parse(run.stdout));
     expect(result.columns).to.deep.equal({ time: 't', th: 'angle', u_th: 'torque' });
@@ -93,7 +73,7 @@ describe('conserva simulate (command line)', function () {
   it('treats a recording without force columns as passive (zero forces) and reports the energy drift', async () => {
     const passive = recordingToCsv(simulateRecording(simplePendulum, { initial: { q: [1.2], dq: [0] }, duration: 3, sampleStep: 0.01 }), ['th']);
     writeFileSync(file('passive.csv'), passive);
-    const run = await conserva(['simulate', file('model.json'), file('passive.csv'), '--json']);
+    const run = await runConserva(['simulate', file('model.json'), file('passive.csv'), '--json']);
     expect(run.status, run.stderr).to.equal(0);
     const result = simulationResultSchema.parse(JSON.parse(run.stdout));
     expect(result.figures.passive).to.equal(true);
@@ -102,21 +82,21 @@ describe('conserva simulate (command line)', function () {
   });
 
   it('prints a readable summary without --json', async () => {
-    const run = await conserva(['simulate', file('model.json'), file('swing.csv')]);
+    const run = await runConserva(['simulate', file('model.json'), file('swing.csv')]);
     expect(run.status, run.stderr).to.equal(0);
     expect(run.stdout).to.contain('error rms').and.to.contain('Mass matrix positive definite').and.to.contain('Caution:');
     expect(() => JSON.parse(run.stdout)).to.throw();
   });
 
   it('runs after discover --model-out: the discovered pendulum predicts a held-out swing', async () => {
-    const discovered = await conserva(['discover', file('description.json'), '--json', '--model-out', file('discovered.json')]);
+    const discovered = await runConserva(['discover', file('description.json'), '--json', '--model-out', file('discovered.json')]);
     expect(discovered.status, discovered.stderr).to.equal(0);
     expect(JSON.parse(discovered.stdout)).to.have.property('best');
     const document = parseModelDocument(readFileSync(file('discovered.json'), 'utf8'), 'discovered.json');
     expect(document.provenance.source).to.equal('conserva discover');
     expect(document.provenance.recordings).to.deep.equal([{ name: 'train.csv', role: 'train' }]);
     expect([...document.lagrangian.terms.map((t) => t.term)].sort()).to.deep.equal(['cos(th)', 'dth^2']);
-    const run = await conserva(['simulate', file('discovered.json'), file('swing.csv'), '--json']);
+    const run = await runConserva(['simulate', file('discovered.json'), file('swing.csv'), '--json']);
     expect(run.status, run.stderr).to.equal(0);
     expect(simulationResultSchema.parse(JSON.parse(run.stdout)).figures.errors[0]!.rms).to.be.below(1e-4);
   });
@@ -140,11 +120,11 @@ describe('conserva simulate (command line)', function () {
         fragments: ['Cannot write the model to'],
       },
     ];
-    const results = new Map<string, Run>();
+    const results = new Map<string, CliRun>();
     before(async () => {
       const queue = [...cases];
       const worker = async () => {
-        for (let next = queue.shift(); next; next = queue.shift()) results.set(next.title, await conserva(next.args()));
+        for (let next = queue.shift(); next; next = queue.shift()) results.set(next.title, await runConserva(next.args()));
       };
       await Promise.all([worker(), worker(), worker()]);
     });
