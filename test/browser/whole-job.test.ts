@@ -6,6 +6,8 @@ import { type Mailbox, startMailbox } from '../../api/src/mailbox/mailbox-server
 import { binomial } from '../../shared/math/combinations.js';
 import { safetyCaution } from '../../shared/model/safety-caution.js';
 import type { AllowanceLimits } from '../../shared/schemas/allowance.js';
+import { type RecordingMappingInput, recordingMappingSchema } from '../../shared/schemas/recording.js';
+import { sweepLaunchSchema } from '../../shared/schemas/sweep.js';
 import { type TeamWithUsers, createTeamWithUsers, signIn } from '../support/fixtures.js';
 import {
   cartPoleCsv,
@@ -51,6 +53,17 @@ async function review(page: Page, name: string, wide = false): Promise<void> {
 
 async function setInput(scope: ReturnType<Page['locator']>, label: string, value: string): Promise<void> {
   await scope.getByLabel(label, { exact: true }).fill(value);
+}
+
+/** The cart-pole mapping of the test files with the two coordinates named as given. */
+function cartPoleMappingNamed(first: string, second: string): RecordingMappingInput {
+  return {
+    time: { column: 't_s', unit: 's' },
+    coordinates: [
+      { name: first, column: 'cart_x_m', unit: 'm', force: { column: 'cart_force_N', unit: 'N' } },
+      { name: second, column: 'pole_angle_rad', unit: 'rad' },
+    ],
+  };
 }
 
 /** Renames the suggested coordinates to x and th, as the candidate terms name them. */
@@ -149,6 +162,13 @@ describe('the whole job in the web app', function () {
       await page.locator('input[type=file]').setInputFiles({ name: 'sway-run-1.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
       await page.getByRole('heading', { name: 'Column mapping' }).waitFor();
       await mapCartPole(page);
+      // Two coordinates of one name: the shared schema's sentence appears under the second name, before any upload.
+      const secondName = page.getByRole('listitem', { name: 'Coordinate 2' }).getByLabel('Name', { exact: true });
+      await secondName.fill('x');
+      await secondName.blur();
+      const twice = recordingMappingSchema.safeParse(cartPoleMappingNamed('x', 'x')).error!.issues.find((i) => i.path.join('.') === 'coordinates.1.name')!.message;
+      await page.getByRole('listitem', { name: 'Coordinate 2' }).locator('mat-error').getByText(twice).waitFor();
+      await secondName.fill('th');
       // The force column was recognised from its name and put on the trolley's coordinate.
       expect(await page.getByRole('listitem', { name: 'Coordinate 1' }).getByLabel('Force column', { exact: true }).innerText()).to.contain('cart_force_N');
       await review(page, 'recording-mapping', true);
@@ -227,6 +247,11 @@ describe('the whole job in the web app', function () {
       await page.getByRole('heading', { name: 'Launch a sweep', level: 1 }).waitFor();
       // Oldest recording trains, the others validate by default; the second run trains too.
       await page.getByRole('radiogroup', { name: 'Use of sway-run-2', exact: true }).getByRole('radio', { name: 'Training' }).click();
+      // A size beyond what the launch schema allows is named under its field.
+      await setInput(page.locator('form'), 'Largest size', '13');
+      await page.getByLabel('Largest size', { exact: true }).blur();
+      const tooLarge = sweepLaunchSchema.shape.settings.shape.sizes.safeParse({ min: 1, max: 13 }).error!.issues[0]!.message;
+      await page.locator('mat-form-field', { hasText: 'Largest size' }).locator('mat-error').getByText(tooLarge).waitFor();
       await setInput(page.locator('form'), 'Largest size', '6');
       await setInput(page.locator('form'), 'Polynomial order', '6');
 

@@ -78,6 +78,8 @@ export class LaunchPage {
   protected readonly estimating = signal(false);
   protected readonly launching = signal(false);
   protected readonly recordingProblem = signal<string | null>(null);
+  /** The messages last placed on the form: a signal, so fields show them even when they arrive after a pause. */
+  private readonly problems = signal<Record<string, string>>({});
 
   protected readonly chosenSet = computed(() => {
     this.value();
@@ -156,7 +158,7 @@ export class LaunchPage {
   }
 
   protected message(path: string): string {
-    return fieldMessage(this.form.get(path));
+    return this.problems()[path] ?? fieldMessage(this.form.get(path));
   }
 
   private async askEstimate(body: ReturnType<typeof toLaunch>): Promise<void> {
@@ -183,6 +185,7 @@ export class LaunchPage {
 
   /** Messages keyed by the body's paths go next to their fields; recording choices get one line. */
   private showProblems(issues: Record<string, string>): void {
+    this.problems.set(issues);
     const unplaced = showIssues(this.form, issues);
     const recordingIssue = Object.entries(unplaced).find(([key]) => /RecordingIds/.test(key));
     this.recordingProblem.set(recordingIssue?.[1] ?? null);
