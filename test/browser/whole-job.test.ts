@@ -6,13 +6,11 @@ import { type Mailbox, startMailbox } from '../../api/src/mailbox/mailbox-server
 import { binomial } from '../../shared/math/combinations.js';
 import { safetyCaution } from '../../shared/model/safety-caution.js';
 import type { AllowanceLimits } from '../../shared/schemas/allowance.js';
+import { demoProjectData, demoRecordingsDir } from '../../api/src/demo/demo-recordings.js';
 import { type RecordingMappingInput, recordingMappingSchema } from '../../shared/schemas/recording.js';
 import { sweepLaunchSchema } from '../../shared/schemas/sweep.js';
 import { type TeamWithUsers, createTeamWithUsers, signIn } from '../support/fixtures.js';
 import {
-  cartPoleCsv,
-  cartPoleTrainingRuns,
-  cartPoleValidationRun,
   launchSweep,
   readSweep,
   setUpCartPoleProject,
@@ -31,6 +29,10 @@ import { unnamedControls } from './support/unnamed-controls.js';
 
 /** Limits far above what these sweeps need, so only the allowance test meets a limit. */
 const roomyAllowance: AllowanceLimits = { cpuSecondsPerMonth: 10_000_000, sweepsAtOnce: 50, subsetsPerSweep: 1e12 };
+
+/** The demo's quay crane: its recordings (committed CSV files) and their column mapping. */
+const crane = demoProjectData.find((d) => d.project === 'Quay crane trolley')!;
+const craneCsv = (file: string) => readFile(new URL(file, demoRecordingsDir), 'utf8');
 
 /** Chromium logs every refused request itself; these are the refusals the tests provoke on purpose. */
 const refusedUpload = /status of 400 .*\/recordings/;
@@ -55,19 +57,14 @@ async function setInput(scope: ReturnType<Page['locator']>, label: string, value
   await scope.getByLabel(label, { exact: true }).fill(value);
 }
 
-/** The cart-pole mapping of the test files with the two coordinates named as given. */
-function cartPoleMappingNamed(first: string, second: string): RecordingMappingInput {
-  return {
-    time: { column: 't_s', unit: 's' },
-    coordinates: [
-      { name: first, column: 'cart_x_m', unit: 'm', force: { column: 'cart_force_N', unit: 'N' } },
-      { name: second, column: 'pole_angle_rad', unit: 'rad' },
-    ],
-  };
+/** The demo crane's mapping with its two coordinates named as given. */
+function craneMappingNamed(first: string, second: string): RecordingMappingInput {
+  const [trolley, load] = crane.mapping.coordinates;
+  return { ...crane.mapping, coordinates: [{ ...trolley!, name: first }, { ...load!, name: second }] };
 }
 
-/** Renames the suggested coordinates to x and th, as the candidate terms name them. */
-async function mapCartPole(page: Page): Promise<void> {
+/** Renames the suggested coordinates to x and th, as the demo's terms name them. */
+async function mapCrane(page: Page): Promise<void> {
   const first = page.getByRole('listitem', { name: 'Coordinate 1' });
   const second = page.getByRole('listitem', { name: 'Coordinate 2' });
   await setInput(first, 'Name', 'x');
@@ -137,15 +134,15 @@ describe('the whole job in the web app', function () {
       await page.getByRole('heading', { name: 'Add a recording', level: 1 }).waitFor();
       await review(page, 'recording-upload');
 
-      // Data row 5 of this file holds text where the sway angle belongs.
-      const good = cartPoleCsv(cartPoleTrainingRuns[0]!);
+      // A copy of a demo recording whose data row 5 holds text where the load angle belongs.
+      const good = await craneCsv('quay-crane-shift-a.csv');
       const lines = good.split('\n');
       lines[5] = lines[5]!.replace(/^([^,]*,[^,]*,)[^,]*/, '$1n/a');
-      await page.locator('input[type=file]').setInputFiles({ name: 'sway-run-broken.csv', mimeType: 'text/csv', buffer: Buffer.from(lines.join('\n')) });
+      await page.locator('input[type=file]').setInputFiles({ name: 'quay-crane-broken.csv', mimeType: 'text/csv', buffer: Buffer.from(lines.join('\n')) });
       await page.getByRole('heading', { name: 'Column mapping' }).waitFor();
       await page.getByRole('button', { name: 'Add coordinate' }).click();
-      await mapCartPole(page);
-      await chooseOption(page, page.getByRole('listitem', { name: 'Coordinate 2' }), 'Position column', 'pole_angle_rad (has text cells)');
+      await mapCrane(page);
+      await chooseOption(page, page.getByRole('listitem', { name: 'Coordinate 2' }), 'Position column', 'load_angle_rad (has text cells)');
       await setInput(page.getByRole('listitem', { name: 'Coordinate 2' }), 'Unit', 'rad');
       await page.getByRole('button', { name: 'Upload recording' }).click();
 
@@ -153,31 +150,34 @@ describe('the whole job in the web app', function () {
       await problem.waitFor();
       const text = await problem.innerText();
       expect(text).to.contain('data row 5');
-      expect(text).to.contain('pole_angle_rad');
+      expect(text).to.contain('load_angle_rad');
       const marked = page.locator('td.fault');
       expect(await marked.innerText()).to.equal('n/a');
       await review(page, 'recording-upload-refused');
 
       await page.getByRole('button', { name: 'Choose another file' }).click();
-      await page.locator('input[type=file]').setInputFiles({ name: 'sway-run-1.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
+      await page.locator('input[type=file]').setInputFiles({ name: 'quay-crane-shift-a.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
       await page.getByRole('heading', { name: 'Column mapping' }).waitFor();
-      await mapCartPole(page);
+      await mapCrane(page);
       // Two coordinates of one name: the shared schema's sentence appears under the second name, before any upload.
       const secondName = page.getByRole('listitem', { name: 'Coordinate 2' }).getByLabel('Name', { exact: true });
       await secondName.fill('x');
       await secondName.blur();
-      const twice = recordingMappingSchema.safeParse(cartPoleMappingNamed('x', 'x')).error!.issues.find((i) => i.path.join('.') === 'coordinates.1.name')!.message;
+      const twice = recordingMappingSchema.safeParse(craneMappingNamed('x', 'x')).error!.issues.find((i) => i.path.join('.') === 'coordinates.1.name')!.message;
       await page.getByRole('listitem', { name: 'Coordinate 2' }).locator('mat-error').getByText(twice).waitFor();
       await secondName.fill('th');
       // The force column was recognised from its name and put on the trolley's coordinate.
-      expect(await page.getByRole('listitem', { name: 'Coordinate 1' }).getByLabel('Force column', { exact: true }).innerText()).to.contain('cart_force_N');
+      expect(await page.getByRole('listitem', { name: 'Coordinate 1' }).getByLabel('Force column', { exact: true }).innerText()).to.contain('drive_force_N');
       await review(page, 'recording-mapping', true);
       await page.getByRole('button', { name: 'Upload recording' }).click();
 
-      await page.getByRole('heading', { name: 'sway-run-1', level: 1 }).waitFor();
+      await page.getByRole('heading', { name: 'quay-crane-shift-a', level: 1 }).waitFor();
+      // Figures read off the file itself: its data rows, and the rate from its first time step.
+      const rows = good.trim().split('\n').slice(1);
+      const step = Number(rows[1]!.split(',')[0]) - Number(rows[0]!.split(',')[0]);
       const stats = await page.locator('[data-test=sampling-stats]').innerText();
-      expect(stats).to.match(/Samples\s+401/);
-      expect(stats).to.match(/Sample rate\s+100 per s/);
+      expect(stats).to.match(new RegExp(`Samples\\s+${rows.length.toLocaleString('en-GB')}\\b`));
+      expect(stats).to.match(new RegExp(`Sample rate\\s+${Number((1 / step).toPrecision(4))} per s`));
       await page.locator('app-line-chart canvas').first().waitFor();
       expect(await page.locator('app-line-chart').count(), 'one plot per channel: x, th, force on x').to.equal(3);
       await review(page, 'recording', true);
@@ -185,11 +185,11 @@ describe('the whole job in the web app', function () {
     });
 
     it('builds a candidate set with typeset terms, a known term and live checks', async function () {
-      // Two more recordings through the API: one more for training, one held out for validation.
+      // Two more demo recordings through the API: one more for training, one held out for validation.
       const agent = await signIn(app.baseUrl, lab.analyst.email, lab.password);
       const projectId = projectUrl.split('/').pop()!;
-      await uploadRecording(agent, projectId, cartPoleCsv(cartPoleTrainingRuns[1]!), 'sway-run-2.csv');
-      await uploadRecording(agent, projectId, cartPoleCsv(cartPoleValidationRun), 'sway-held-out.csv');
+      await uploadRecording(agent, projectId, await craneCsv('quay-crane-shift-b.csv'), 'quay-crane-shift-b.csv', crane.mapping);
+      await uploadRecording(agent, projectId, await craneCsv('quay-crane-check.csv'), 'quay-crane-check.csv', crane.mapping);
 
       const tab = await open(lab.analyst.email, lab.password);
       const { page } = tab;
@@ -246,7 +246,7 @@ describe('the whole job in the web app', function () {
       await page.locator('[data-test=new-sweep]').click();
       await page.getByRole('heading', { name: 'Launch a sweep', level: 1 }).waitFor();
       // Oldest recording trains, the others validate by default; the second run trains too.
-      await page.getByRole('radiogroup', { name: 'Use of sway-run-2', exact: true }).getByRole('radio', { name: 'Training' }).click();
+      await page.getByRole('radiogroup', { name: 'Use of quay-crane-shift-b', exact: true }).getByRole('radio', { name: 'Training' }).click();
       // A size beyond what the launch schema allows is named under its field.
       await setInput(page.locator('form'), 'Largest size', '13');
       await page.getByLabel('Largest size', { exact: true }).blur();

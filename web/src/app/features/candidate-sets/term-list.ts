@@ -67,8 +67,16 @@ const roleLabels: Record<TermRole, string> = { candidate: 'Candidate', known: 'K
       display: grid; grid-template-columns: 32px minmax(0, 1fr) auto auto; gap: 10px; align-items: center;
       padding: 6px 4px 6px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant);
     }
-    .term.known { background: color-mix(in srgb, var(--mat-sys-primary-container) 45%, transparent); }
-    .term.reference { background: color-mix(in srgb, var(--mat-sys-tertiary-container) 55%, transparent); }
+    .term.known { background: color-mix(in srgb, var(--mat-sys-primary-container) 35%, transparent); box-shadow: inset 3px 0 var(--mat-sys-primary); }
+    .term.reference { background: color-mix(in srgb, var(--mat-sys-tertiary-container) 45%, transparent); box-shadow: inset 3px 0 var(--mat-sys-tertiary); }
+    .term.known .roles {
+      --mat-button-toggle-selected-state-background-color: var(--mat-sys-primary);
+      --mat-button-toggle-selected-state-text-color: var(--mat-sys-on-primary);
+    }
+    .term.reference .roles {
+      --mat-button-toggle-selected-state-background-color: var(--mat-sys-tertiary);
+      --mat-button-toggle-selected-state-text-color: var(--mat-sys-on-tertiary);
+    }
     .term.bad { background: color-mix(in srgb, var(--mat-sys-error-container) 50%, transparent); }
     .index { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-label-medium); text-align: right; }
     .line { display: flex; align-items: baseline; gap: 14px; flex-wrap: wrap; min-width: 0; }
@@ -81,7 +89,7 @@ const roleLabels: Record<TermRole, string> = { candidate: 'Candidate', known: 'K
     .verdict { margin: 2px 0 0; font: var(--mat-sys-body-small); }
     .verdict.error { color: var(--mat-sys-error); }
     .verdict.excluded { color: var(--mat-sys-on-surface-variant); font-style: italic; }
-    .roles { --mat-button-toggle-height: 30px; font: var(--mat-sys-label-medium); }
+    .roles { --mat-button-toggle-height: 30px; --mat-button-toggle-label-text-size: 13px; }
     .role-label { font: var(--mat-sys-label-large); color: var(--mat-sys-primary); padding-right: 8px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
