@@ -22,6 +22,8 @@ import { adminAllowancesRouter, ownAllowanceRouter } from './routes/allowances.j
 import { candidateSetsRouter, projectCandidateSetsRouter } from './routes/candidate-sets.js';
 import { projectRecordingsRouter, recordingsRouter } from './routes/recordings.js';
 import { projectSweepsRouter, sweepsRouter } from './routes/sweeps.js';
+import { sweepModelsRouter } from './routes/sweep-models.js';
+import { ModelDetailsPool } from './models/model-details-pool.js';
 import { QueueClient } from './queue/queue-client.js';
 import { LiveHub } from './live/live-hub.js';
 import { healthRouter } from './routes/health.js';
@@ -78,6 +80,7 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
   const passport = createPassport(orm);
   const queue = new QueueClient(config.databaseUrl, logger);
   const live = new LiveHub(orm, sessionMiddleware, config.databaseUrl, logger);
+  const models = new ModelDetailsPool();
 
   const app = express();
   app.set('trust proxy', config.trustProxy);
@@ -100,6 +103,7 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
   api.use('/recordings', recordingsRouter(orm));
   api.use('/candidate-sets', candidateSetsRouter(orm));
   api.use('/sweeps', sweepsRouter(orm, queue));
+  api.use('/sweeps', sweepModelsRouter(orm, models));
   api.use('/allowance', ownAllowanceRouter(orm, config.allowanceDefaults));
   api.use('/admin', requireRole('admin'));
   api.use('/admin/teams', adminTeamsRouter(orm));
@@ -123,6 +127,7 @@ export function createApp(orm: MikroORM, config: AppConfig, logger: Logger): Con
     async close() {
       await live.close();
       await queue.close();
+      await models.destroy();
       await sessionPool.end();
     },
   };

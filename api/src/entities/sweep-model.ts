@@ -16,7 +16,9 @@ export const SweepModel = defineEntity({
     id: p.uuid().primary().onCreate(() => randomUUID()),
     sweep: p.manyToOne(Sweep).deleteRule('cascade'),
     modelIndex: p.integer(),
-    details: p.json<ModelDetails>(),
+    // json, not jsonb: the text is kept as written, so keys keep their order (jsonb sorts them), and the
+    // model document downloaded from it reads format and version first, as our format is documented.
+    details: p.json<ModelDetails>().columnType('json'),
     createdAt: p.datetime().onCreate(() => new Date()),
   },
   uniques: [{ properties: ['sweep', 'modelIndex'] }],

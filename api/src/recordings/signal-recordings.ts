@@ -1,15 +1,16 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { Recording as SignalRecording } from '../../../shared/math/recording.js';
 import type { FrozenSweepDescription } from '../../../shared/schemas/sweep.js';
-import { Recording } from '../../../api/src/entities/recording.js';
-import { RecordingSamples } from '../../../api/src/entities/recording-samples.js';
-import { decodeChannels } from '../../../api/src/recordings/samples-codec.js';
+import { Recording } from '../entities/recording.js';
+import { RecordingSamples } from '../entities/recording-samples.js';
+import { decodeChannels } from './samples-codec.js';
 
 /**
  * The sweep's recordings as the engine reads them, from the stored samples: positions in the order of the
  * sweep's coordinates, measured velocities where mapped, forces where mapped (none at all when no coordinate
  * of the sweep has one), each with the role frozen at launch. The values are the CSV's numbers exactly, so
- * the engine sees what the command line would see reading the same files.
+ * the engine sees what the command line would see reading the same files. The worker's prepare and finish
+ * steps and the API's model details read them through here.
  */
 export async function loadSignalRecordings(em: EntityManager, description: FrozenSweepDescription): Promise<SignalRecording[]> {
   const recordings: SignalRecording[] = [];

@@ -5,7 +5,7 @@ import { Sweep } from '../../../api/src/entities/sweep.js';
 import { notifySweepEvent } from '../../../api/src/live/sweep-events.js';
 import type { FinishJob } from '../../../api/src/queue/sweep-jobs.js';
 import { endSweep } from '../../../api/src/sweeps/sweep-end.js';
-import { loadSignalRecordings } from '../sweeps/signal-recordings.js';
+import { loadSignalRecordings } from '../../../api/src/recordings/signal-recordings.js';
 import { failSweep } from '../sweeps/sweep-failure.js';
 import type { JobContext } from './job-context.js';
 

@@ -9,7 +9,7 @@ import { notifySweepEvent } from '../../../api/src/live/sweep-events.js';
 import { sweepQueueNames, type PrepareJob } from '../../../api/src/queue/sweep-jobs.js';
 import { sendInTransaction } from '../../../api/src/queue/transactional-send.js';
 import { measuredThroughput } from '../../../api/src/sweeps/measured-throughput.js';
-import { loadSignalRecordings } from '../sweeps/signal-recordings.js';
+import { loadSignalRecordings } from '../../../api/src/recordings/signal-recordings.js';
 import { failSweep } from '../sweeps/sweep-failure.js';
 import type { JobContext } from './job-context.js';
 
