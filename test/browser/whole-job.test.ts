@@ -89,10 +89,11 @@ describe('the whole job in the web app', function () {
     app = await startTestApp({ allowanceDefaults: roomyAllowance });
     lab = await createTeamWithUsers(app.orm, 'Quay crane lab');
     mailbox = await startMailbox(app.orm, { port: 0, logger: createLogger('silent', 'mailbox-test') });
-    // Shards of about 0.02 CPU seconds by the built-in rate: even a small sweep merges into its leaderboard
-    // several times, so its changes can be watched. Its e-mails go to the local mailbox.
+    // Shards of 200,000 subsets: the walk's sweep (1,391,841 subsets) merges into its leaderboard seven times, so
+    // its changes can be watched, and the longer sweeps leave few shards behind when cancelled. E-mails go to
+    // the local mailbox.
     [worker, browser] = await Promise.all([
-      startTestWorker({ threads: 1, smtpUrl: `smtp://127.0.0.1:${mailbox.port}`, env: { CONSERVA_SHARD_SECONDS: '0.02' } }),
+      startTestWorker({ threads: 1, shardSubsets: 200_000, smtpUrl: `smtp://127.0.0.1:${mailbox.port}` }),
       launchBrowser(),
     ]);
   });
@@ -326,7 +327,7 @@ describe('the whole job in the web app', function () {
     it('recovers by itself after the live connection drops, and cancels after a confirmation', async function () {
       const agent = await signIn(app.baseUrl, lab.analyst.email, lab.password);
       const project = await setUpCartPoleProject(agent, 'Gantry pendulum');
-      const sweep = await launchSweep(agent, project.projectId, project.launch(6, 'Long sweep'));
+      const sweep = await launchSweep(agent, project.projectId, project.launch(5, 'Long sweep'));
 
       const tab = await openSignedIn(browser, app.baseUrl, lab.analyst.email, lab.password);
       tabs.push(tab);
@@ -370,7 +371,7 @@ describe('the whole job in the web app', function () {
     it('sees the team\'s work with no launch, edit or cancel control, and a forged launch or cancel is refused', async function () {
       const agent = await signIn(app.baseUrl, lab.analyst.email, lab.password);
       const project = await setUpCartPoleProject(agent, 'Balance beam rig');
-      const running = await launchSweep(agent, project.projectId, project.launch(6, 'Sweep the viewer watches'));
+      const running = await launchSweep(agent, project.projectId, project.launch(5, 'Sweep the viewer watches'));
       const base = `/projects/${project.projectId}`;
 
       const tab = await open(lab.viewer.email, lab.password);
@@ -399,10 +400,17 @@ describe('the whole job in the web app', function () {
       expect(await page.locator('[data-test=cancel-sweep]').count(), 'cancel control').to.equal(0);
       await review(page, 'viewer-sweep');
 
-      // The launch page itself is out of reach: the viewer lands on the project instead.
-      await page.goto(`${base}/sweeps/new`);
-      await page.getByRole('heading', { name: 'Balance beam rig', level: 1 }).waitFor();
-      expect(new URL(page.url()).pathname).to.equal(`${base}/recordings`);
+      // The launch and upload pages themselves are out of reach: the viewer lands on the project instead.
+      for (const screen of ['sweeps/new', 'recordings/new', 'candidate-sets/new']) {
+        await page.goto(`${base}/${screen}`);
+        await page.getByRole('heading', { name: 'Balance beam rig', level: 1 }).waitFor();
+        expect(new URL(page.url()).pathname, screen).to.equal(`${base}/recordings`);
+      }
+      // Administration is for admins: no link to it, and its address leads back to the projects.
+      expect(await page.getByRole('link', { name: 'Administration' }).count()).to.equal(0);
+      await page.goto('/admin/allowances');
+      await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
+      expect(await page.getByRole('button', { name: 'New project' }).count(), 'project creation').to.equal(0);
 
       // Forged from the page with the viewer's own session and anti-forgery token: the API says no.
       const token = await csrfTokenOf(page);
