@@ -19,6 +19,7 @@ import {
 import { type TestApp, startTestApp } from '../support/test-app.js';
 import { type TestWorker, eventually, startTestWorker } from '../support/worker-processes.js';
 import { csrfTokenOf } from './support/csrf-token.js';
+import { dropFile } from './support/drop-file.js';
 import type { GuardedPage } from './support/guarded-page.js';
 import { launchBrowser } from './support/launch-browser.js';
 import { expectCleanPage } from './support/page-expectations.js';
@@ -118,7 +119,7 @@ describe('the whole job in the web app', function () {
     let projectUrl = '';
     let sweepUrl = '';
 
-    it('creates a project and uploads a recording; a bad cell is shown at its row and column', async function () {
+    it('creates a project and uploads a demo recording by file picker and by drag and drop; a bad cell is shown at its row and column', async function () {
       const tab = await open(lab.analyst.email, lab.password);
       const { page } = tab;
       await page.getByRole('button', { name: 'New project' }).click();
@@ -156,8 +157,9 @@ describe('the whole job in the web app', function () {
       expect(await marked.innerText()).to.equal('n/a');
       await review(page, 'recording-upload-refused');
 
+      // The intact file is dragged onto the drop zone this time.
       await page.getByRole('button', { name: 'Choose another file' }).click();
-      await page.locator('input[type=file]').setInputFiles({ name: 'quay-crane-shift-a.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
+      await dropFile(page, '[data-test=drop-zone]', 'quay-crane-shift-a.csv', good);
       await page.getByRole('heading', { name: 'Column mapping' }).waitFor();
       await mapCrane(page);
       // Two coordinates of one name: the shared schema's sentence appears under the second name, before any upload.
