@@ -32,6 +32,7 @@ describe('model details (GET /api/sweeps/:sweepId/models/:modelIndex)', () => {
     this.timeout(240_000);
     app = await startTestApp({ allowanceDefaults: generousAllowance });
     run = await runModelSweep(app, 'Model details lab', 'Cart-pole details rig');
+    expect(run.candidateSet.candidateCount).to.equal(34);
   });
   after(async () => {
     await app?.close();
