@@ -171,12 +171,16 @@ describe('the whole job in the web app', function () {
       await secondName.fill('th');
       // The force column was recognised from its name and put on the trolley's coordinate.
       expect(await page.getByRole('listitem', { name: 'Coordinate 1' }).getByLabel('Force column', { exact: true }).innerText()).to.contain('drive_force_N');
+      // Before the upload the mapped channels are already previewed, with the sampling of the time column.
+      const rows = good.trim().split('\n').slice(1);
+      await page.locator('app-mapping-preview app-line-chart canvas').nth(2).waitFor();
+      expect(await page.locator('app-mapping-preview app-line-chart').count(), 'x, th and the force on x').to.equal(3);
+      expect(await page.locator('[data-test=preview-stats]').innerText()).to.match(new RegExp(`Samples\\s+${rows.length.toLocaleString('en-GB')}\\b`));
       await review(page, 'recording-mapping', true);
       await page.getByRole('button', { name: 'Upload recording' }).click();
 
       await page.getByRole('heading', { name: 'quay-crane-shift-a', level: 1 }).waitFor();
       // Figures read off the file itself: its data rows, and the rate from its first time step.
-      const rows = good.trim().split('\n').slice(1);
       const step = Number(rows[1]!.split(',')[0]) - Number(rows[0]!.split(',')[0]);
       const stats = await page.locator('[data-test=sampling-stats]').innerText();
       expect(stats).to.match(new RegExp(`Samples\\s+${rows.length.toLocaleString('en-GB')}\\b`));

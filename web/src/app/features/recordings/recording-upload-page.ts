@@ -6,6 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router } from '@angular/router';
 import type { Subscription } from 'rxjs';
+import { type CsvTable, parseCsvTable } from '../../../../../shared/math/csv-recording';
 import { type RecordingInspection, recordingMappingSchema } from '../../../../../shared/schemas/recording';
 import { type ApiFailure, toApiFailure } from '../../core/api-failure';
 import { schemaIssues, showIssues } from '../../core/schema-issues';
@@ -16,10 +17,14 @@ import { ProjectNames } from '../projects/project-names';
 import { ColumnMappingForm } from './column-mapping-form';
 import { type CsvFault, CsvPreviewTable } from './csv-preview-table';
 import { FileDropZone } from './file-drop-zone';
+import { MappingPreview } from './mapping-preview';
 import { columnRoles, createCoordinateForm, createMappingForm, suggestMapping, toMapping } from './mapping-form-model';
 import { RecordingsApi } from './recordings-api';
 
 type Stage = 'choose' | 'reading' | 'map' | 'uploading';
+
+/** Files up to this size are also read in the browser to preview the mapped channels. */
+const previewLimitBytes = 20 * 1024 * 1024;
 
 /**
  * Adding a recording: drop or choose a CSV file, see its first rows, map its columns onto time, coordinates,
@@ -38,6 +43,7 @@ type Stage = 'choose' | 'reading' | 'map' | 'uploading';
     ColumnMappingForm,
     CsvPreviewTable,
     FileDropZone,
+    MappingPreview,
   ],
   template: `
     <app-breadcrumbs [trail]="[{ label: 'Projects', link: ['/projects'] }, { label: projectName(), link: ['/projects', projectId()] }, { label: 'Recordings', link: ['/projects', projectId(), 'recordings'] }, { label: 'Add a recording' }]" />
@@ -85,6 +91,10 @@ type Stage = 'choose' | 'reading' | 'map' | 'uploading';
       <form class="panel" [formGroup]="form" (ngSubmit)="upload()" novalidate aria-labelledby="mapping-heading">
         <h2 id="mapping-heading" class="section-title">Column mapping</h2>
         <app-column-mapping-form [form]="form" [inspection]="found" (add)="addCoordinate()" (remove)="removeCoordinate($event)" />
+        @if (table(); as t) {
+          <h3 class="section-title preview-title">Preview of the mapped channels</h3>
+          <app-mapping-preview [table]="t" [mapping]="mapping()" />
+        }
         <div class="form-actions">
           <button mat-button type="button" (click)="cancel()">Cancel</button>
           <button mat-flat-button type="submit" [disabled]="stage() === 'uploading'"><mat-icon>cloud_upload</mat-icon> Upload recording</button>
@@ -98,6 +108,7 @@ type Stage = 'choose' | 'reading' | 'map' | 'uploading';
     .file-line p { margin: 0; }
     .where { margin-top: 4px !important; font-weight: 500; }
     form { margin-top: 16px; }
+    .preview-title { margin-top: 20px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -117,10 +128,13 @@ export class RecordingUploadPage {
   protected readonly fault = signal<CsvFault | null>(null);
   protected readonly form = createMappingForm(this.fb);
   private readonly value = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
-  protected readonly roles = computed(() => {
+  protected readonly mapping = computed(() => {
     this.value();
-    return columnRoles(toMapping(this.form.getRawValue()));
+    return toMapping(this.form.getRawValue());
   });
+  protected readonly roles = computed(() => columnRoles(this.mapping()));
+  /** The file read here as well, for the preview; null when it is too large or not readable as CSV. */
+  protected readonly table = signal<CsvTable | null>(null);
   private transfer: Subscription | null = null;
 
   constructor() {
@@ -145,6 +159,7 @@ export class RecordingUploadPage {
         this.inspection.set(step.answer);
         this.prefill(step.answer);
         this.stage.set('map');
+        void this.readForPreview(file);
       },
       error: (err: ApiFailure) => {
         this.progress.set(null);
@@ -184,6 +199,17 @@ export class RecordingUploadPage {
     });
   }
 
+  private async readForPreview(file: File): Promise<void> {
+    this.table.set(null);
+    if (file.size > previewLimitBytes) return;
+    try {
+      const table = parseCsvTable(await file.text(), file.name);
+      if (this.file() === file) this.table.set(table);
+    } catch {
+      // The server already read the file; its refusal, if any, is what the page shows.
+    }
+  }
+
   protected addCoordinate(): void {
     const count = this.form.controls.coordinates.length;
     this.form.controls.coordinates.push(
@@ -198,6 +224,7 @@ export class RecordingUploadPage {
   protected startOver(): void {
     this.transfer?.unsubscribe();
     this.inspection.set(null);
+    this.table.set(null);
     this.file.set(null);
     this.problem.set(null);
     this.fault.set(null);
