@@ -177,7 +177,16 @@ describe('the whole job in the web app', function () {
       expect(await page.locator('app-mapping-preview app-line-chart').count(), 'x, th and the force on x').to.equal(3);
       expect(await page.locator('[data-test=preview-stats]').innerText()).to.match(new RegExp(`Samples\\s+${rows.length.toLocaleString('en-GB')}\\b`));
       await review(page, 'recording-mapping', true);
+
+      // On a slow line (about 40 kB/s up) the upload shows how far it has come.
+      const network = await page.context().newCDPSession(page);
+      await network.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 40_000 });
       await page.getByRole('button', { name: 'Upload recording' }).click();
+      const progress = page.locator('[data-test=upload-progress]');
+      await progress.getByText('Uploading quay-crane-shift-a.csv').waitFor();
+      await review(page, 'recording-uploading');
+      await network.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+      await network.detach();
 
       await page.getByRole('heading', { name: 'quay-crane-shift-a', level: 1 }).waitFor();
       // Figures read off the file itself: its data rows, and the rate from its first time step.
@@ -223,6 +232,13 @@ describe('the whole job in the web app', function () {
       await page.getByRole('radiogroup', { name: 'Role of dx^2', exact: true }).getByRole('radio', { name: 'Known' }).click();
       await eventually('33 candidates', async () => ((await count.innerText()) === '33' ? true : undefined), 20_000);
       expect(await page.locator('[data-test=subsets-at-size]').nth(2).innerText()).to.equal(binomial(33, 3).toLocaleString('en-GB'));
+
+      // dth^2 as the reference term: it leaves the candidates, and its fixed coefficient can be set.
+      await page.getByRole('radiogroup', { name: 'Role of dth^2', exact: true }).getByRole('radio', { name: 'Reference' }).click();
+      await eventually('32 candidates', async () => ((await count.innerText()) === '32' ? true : undefined), 20_000);
+      await page.getByLabel('Fixed coefficient').waitFor();
+      await page.getByRole('radiogroup', { name: 'Role of dth^2', exact: true }).getByRole('radio', { name: 'Candidate' }).click();
+      await eventually('33 candidates again', async () => ((await count.innerText()) === '33' ? true : undefined), 20_000);
 
       // A term over a symbol that is no coordinate is refused next to the field, and nothing is added.
       await page.getByLabel('Add a term').fill('dz^2');

@@ -138,7 +138,8 @@ export class LiveSweeps {
 export function applyMessage(current: LiveSweep, message: LiveServerMessage): LiveSweep {
   switch (message.type) {
     case 'state':
-      return { sweep: message.sweep, leaderboard: message.leaderboard, progress: null, problem: null };
+      // After a reconnect the last progress stays on screen until the next one arrives.
+      return { sweep: message.sweep, leaderboard: message.leaderboard, progress: current.progress, problem: null };
     case 'progress':
       return { ...current, progress: message };
     case 'shards': {

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
+import { NgTemplateOutlet } from '@angular/common';
 import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -33,6 +34,7 @@ const previewLimitBytes = 20 * 1024 * 1024;
 @Component({
   selector: 'app-recording-upload-page',
   imports: [
+    NgTemplateOutlet,
     ReactiveFormsModule,
     MatButtonModule,
     MatIconModule,
@@ -69,11 +71,8 @@ const previewLimitBytes = 20 * 1024 * 1024;
     @if (stage() === 'choose' || stage() === 'reading') {
       <app-file-drop-zone hint="Comma-separated, up to 20 MB. Nothing is stored until you upload." [disabled]="stage() === 'reading'" (file)="read($event)" />
     }
-    @if (progress(); as p) {
-      <div class="progress" role="status">
-        <span>{{ p.label }}</span>
-        <mat-progress-bar [mode]="p.percent === null ? 'indeterminate' : 'determinate'" [value]="p.percent ?? 0" [attr.aria-label]="p.label" />
-      </div>
+    @if (stage() === 'reading') {
+      <ng-container *ngTemplateOutlet="progressLine" />
     }
 
     @if (inspection(); as found) {
@@ -95,12 +94,24 @@ const previewLimitBytes = 20 * 1024 * 1024;
           <h3 class="section-title preview-title">Preview of the mapped channels</h3>
           <app-mapping-preview [table]="t" [mapping]="mapping()" />
         }
+        @if (stage() === 'uploading') {
+          <ng-container *ngTemplateOutlet="progressLine" />
+        }
         <div class="form-actions">
           <button mat-button type="button" (click)="cancel()">Cancel</button>
           <button mat-flat-button type="submit" [disabled]="stage() === 'uploading'"><mat-icon>cloud_upload</mat-icon> Upload recording</button>
         </div>
       </form>
     }
+
+    <ng-template #progressLine>
+      @if (progress(); as p) {
+        <div class="progress" role="status" data-test="upload-progress">
+          <span>{{ p.label }}{{ p.percent === null ? '' : ' ' + p.percent + ' %' }}</span>
+          <mat-progress-bar [mode]="p.percent === null ? 'indeterminate' : 'determinate'" [value]="p.percent ?? 0" [attr.aria-label]="p.label" />
+        </div>
+      }
+    </ng-template>
   `,
   styles: `
     .progress { display: grid; gap: 6px; margin: 16px 0; font: var(--mat-sys-body-medium); }

@@ -55,11 +55,17 @@ export class SweepProgress {
     if (!startedAt) return null;
     return ((endedAt ? Date.parse(endedAt) : Date.now()) - Date.parse(startedAt)) / 1000;
   });
+  /** The hub's rate over the last seconds while running; otherwise the average since the start. */
   protected readonly rate = computed(() => {
     const live = this.progress();
-    if (live && !this.ended()) return live.subsetsPerSecond;
+    if (live && !this.ended() && live.subsetsPerSecond !== null) return live.subsetsPerSecond;
     const elapsed = this.elapsed();
     return elapsed && elapsed > 0 && this.tried() > 0 ? this.tried() / elapsed : null;
   });
-  protected readonly eta = computed(() => this.progress()?.etaSeconds ?? null);
+  protected readonly eta = computed(() => {
+    const live = this.progress()?.etaSeconds;
+    if (live !== null && live !== undefined) return live;
+    const rate = this.rate();
+    return rate && !this.ended() ? Math.max(0, this.total() - this.tried()) / rate : null;
+  });
 }
