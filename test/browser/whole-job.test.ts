@@ -325,10 +325,11 @@ describe('the whole job in the web app', function () {
     it('opens the best model and downloads an export carrying the caution', async function () {
       const tab = await open(lab.analyst.email, lab.password);
       const { page } = tab;
-      await page.goto(sweepUrl);
-      await page.locator('[data-test=models]').waitFor();
-      await page.getByRole('link', { name: 'Open model 1', exact: true }).click();
+      // The way a newcomer goes: from the projects, into the project, and on from its latest sweep.
+      await page.getByRole('link', { name: /Quay crane trolley/ }).click();
+      await page.locator('[data-test=latest-sweep]').getByRole('link', { name: 'Open the best model' }).click();
       await page.getByRole('heading', { name: 'Best model', level: 1 }).waitFor();
+      expect(new URL(page.url()).pathname).to.equal(`${sweepUrl}/models/0`);
       expect(await page.locator('[data-test=caution]').innerText()).to.contain(safetyCaution);
       await page.locator('[data-test=energy] .katex').waitFor({ timeout: 30_000 });
       await page.locator('[data-test=coefficients]').waitFor();
