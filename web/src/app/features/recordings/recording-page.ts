@@ -70,7 +70,7 @@ const kindOrder: Record<RecordingChannel['kind'], number> = { time: 0, position:
           {{ r.channels.length - 1 }} channels against {{ r.mapping.time.column }} ({{ r.mapping.time.unit }}).
           {{ r.forced ? 'Forces are recorded.' : 'No forces are recorded: the sweep needs a reference term.' }}
           @if (samples(); as s) {
-            @if (s.stride > 1) { Plots show every {{ s.stride }}th sample. }
+            @if (s.stride > 1) { Plots show one sample in {{ s.stride }}. }
           }
         </p>
         @if (plots(); as list) {

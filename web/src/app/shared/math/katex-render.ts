@@ -17,6 +17,8 @@ function linkStylesheet(): void {
   const link = document.createElement('link');
   link.id = stylesheetId;
   link.rel = 'stylesheet';
-  link.href = 'katex.css';
+  // The stylesheet's name carries no content hash (it is built as a separate bundle) and the server lets
+  // browsers keep files for a year: the version in the address makes a KaTeX upgrade load the new one.
+  link.href = `katex.css?v=${katex.version}`;
   document.head.appendChild(link);
 }
