@@ -2,20 +2,20 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import type { AllowanceList, AllowanceStatus } from '../../../../../shared/schemas/allowance';
 import type { WorkerPresence } from '../../../../../shared/schemas/worker-presence';
 import { toApiFailure } from '../../core/api-failure';
 import { CountPipe } from '../../shared/format/count-pipe';
 import { DurationPipe } from '../../shared/format/duration-pipe';
+import { LoadingState } from '../../shared/loading-state';
 import { AdminApi } from './admin-api';
 import { AllowanceEditor } from './allowance-editor';
 
 /** Each team's compute allowance with its use this month, editable; and the workers that serve them all. */
 @Component({
   selector: 'app-allowances-panel',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, AllowanceEditor, CountPipe, DurationPipe],
+  imports: [LoadingState, DatePipe, MatButtonModule, MatIconModule, AllowanceEditor, CountPipe, DurationPipe],
   template: `
     @if (list(); as l) {
       <p class="section-note">Use in {{ l.month }} (UTC). Reserved time is what queued and running sweeps are still expected to take.</p>
@@ -50,10 +50,8 @@ import { AllowanceEditor } from './allowance-editor';
           </li>
         }
       </ul>
-    } @else if (failure(); as message) {
-      <div class="callout error" role="alert"><mat-icon aria-hidden="true">error</mat-icon><p>{{ message }}</p></div>
     } @else {
-      <mat-progress-bar mode="indeterminate" aria-label="Loading allowances" />
+      <app-loading-state [failure]="failure()" label="Loading allowances" />
     }
 
     <section class="panel workers" aria-labelledby="workers-heading">

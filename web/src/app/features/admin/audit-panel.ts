@@ -3,11 +3,11 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { type AuditAction, type AuditEventView, auditActions } from '../../../../../shared/schemas/audit-event';
 import { toApiFailure } from '../../core/api-failure';
+import { LoadingState } from '../../shared/loading-state';
 import { AdminApi } from './admin-api';
 
 /** How actions read on screen; an action added later reads as its code until it gets a label here. */
@@ -38,9 +38,9 @@ const actionLabels: Partial<Record<AuditAction, string>> = {
 /** The newest audit events, filterable by kind, each with who, which team, what and the details. */
 @Component({
   selector: 'app-audit-panel',
-  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, MatTableModule],
+  imports: [LoadingState, DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatSelectModule, MatTableModule],
   template: `
-    <div class="bar">
+    <div class="tab-bar">
       <mat-form-field class="filter">
         <mat-label>Show</mat-label>
         <mat-select [value]="filter()" (selectionChange)="filter.set($event.value)">
@@ -51,7 +51,7 @@ const actionLabels: Partial<Record<AuditAction, string>> = {
       <button mat-stroked-button type="button" (click)="load()"><mat-icon>refresh</mat-icon> Refresh</button>
     </div>
     @if (events(); as list) {
-      <div class="panel flush">
+      <div class="panel table-panel">
         <table mat-table [dataSource]="shown()" class="data-table" aria-label="Audit log" data-test="audit-log">
           <ng-container matColumnDef="when">
             <th mat-header-cell *matHeaderCellDef>When</th>
@@ -79,22 +79,18 @@ const actionLabels: Partial<Record<AuditAction, string>> = {
         </table>
       </div>
       <p class="muted small">The newest {{ list.length }} events.</p>
-    } @else if (failure(); as message) {
-      <div class="callout error" role="alert"><mat-icon aria-hidden="true">error</mat-icon><p>{{ message }}</p></div>
     } @else {
-      <mat-progress-bar mode="indeterminate" aria-label="Loading the audit log" />
+      <app-loading-state [failure]="failure()" label="Loading the audit log" />
     }
   `,
   styles: `
     .bar { display: flex; gap: 12px; align-items: flex-start; }
     .filter { width: 280px; }
     .bar button { margin-top: 8px; }
-    .flush { padding: 4px 0; overflow-x: auto; }
     .when { white-space: nowrap; }
     .action { font-weight: 500; }
     .action.bad { color: var(--mat-sys-error); }
     .details { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); max-width: 420px; overflow-wrap: anywhere; }
-    .small { font: var(--mat-sys-body-small); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

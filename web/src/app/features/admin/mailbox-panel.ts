@@ -2,17 +2,17 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { MailboxMessage } from '../../../../../shared/schemas/mailbox';
 import { toApiFailure } from '../../core/api-failure';
+import { LoadingState } from '../../shared/loading-state';
 import { AdminApi } from './admin-api';
 
 /** What the local mailbox received (finished-sweep notices and the like): a list and the open message. */
 @Component({
   selector: 'app-mailbox-panel',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [LoadingState, DatePipe, MatButtonModule, MatIconModule],
   template: `
-    <div class="bar">
+    <div class="tab-bar">
       <p class="section-note">The local mail receiver keeps every message Conserva sends while it runs on this machine.</p>
       <button mat-stroked-button type="button" (click)="load()"><mat-icon>refresh</mat-icon> Refresh</button>
     </div>
@@ -42,15 +42,11 @@ import { AdminApi } from './admin-api';
           </article>
         </div>
       }
-    } @else if (failure(); as message) {
-      <div class="callout error" role="alert"><mat-icon aria-hidden="true">error</mat-icon><p>{{ message }}</p></div>
     } @else {
-      <mat-progress-bar mode="indeterminate" aria-label="Loading the mailbox" />
+      <app-loading-state [failure]="failure()" label="Loading the mailbox" />
     }
   `,
   styles: `
-    .bar { display: flex; justify-content: space-between; align-items: flex-start; gap: 16px; margin-bottom: 12px; }
-    .bar .section-note { margin: 8px 0 0; }
     .mailbox { display: grid; grid-template-columns: 340px minmax(0, 1fr); gap: 16px; align-items: start; }
     .list { margin: 0; padding: 4px; list-style: none; max-height: 640px; overflow-y: auto; }
     .item {

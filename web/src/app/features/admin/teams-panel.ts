@@ -2,25 +2,24 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { type AdminTeam, teamInputSchema } from '../../../../../shared/schemas/team-admin';
 import { toApiFailure } from '../../core/api-failure';
+import { FailureNotice } from '../../core/failure-notice';
 import { fieldMessage } from '../../core/schema-issues';
 import { zodValidator } from '../../core/zod-validator';
-import { ConfirmDialog, type ConfirmQuestion } from '../../shared/confirm-dialog';
+import { Confirmation } from '../../shared/confirmation';
+import { LoadingState } from '../../shared/loading-state';
 import { AdminApi } from './admin-api';
 
 /** Teams: how many people and projects each has; new teams, renames, and removal of empty teams. */
 @Component({
   selector: 'app-teams-panel',
-  imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatTableModule, MatTooltipModule],
+  imports: [LoadingState, DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatTableModule, MatTooltipModule],
   template: `
     <form class="panel add" (ngSubmit)="create()" novalidate>
       <mat-form-field>
@@ -31,7 +30,7 @@ import { AdminApi } from './admin-api';
       <button mat-flat-button type="submit"><mat-icon>group_add</mat-icon> Add team</button>
     </form>
     @if (teams(); as list) {
-      <div class="panel flush">
+      <div class="panel table-panel">
         <table mat-table [dataSource]="list" class="data-table" aria-label="Teams">
           <ng-container matColumnDef="name">
             <th mat-header-cell *matHeaderCellDef>Team</th>
@@ -74,17 +73,14 @@ import { AdminApi } from './admin-api';
           <tr mat-row *matRowDef="let row; columns: columns"></tr>
         </table>
       </div>
-    } @else if (failure(); as message) {
-      <div class="callout error" role="alert"><mat-icon aria-hidden="true">error</mat-icon><p>{{ message }}</p></div>
     } @else {
-      <mat-progress-bar mode="indeterminate" aria-label="Loading teams" />
+      <app-loading-state [failure]="failure()" label="Loading teams" />
     }
   `,
   styles: `
     .add { display: flex; gap: 12px; align-items: flex-start; margin-bottom: 16px; }
     .add mat-form-field { flex: 0 1 360px; }
     .add button { margin-top: 8px; }
-    .flush { padding: 4px 0; overflow-x: auto; }
     .rename { display: flex; align-items: center; gap: 4px; padding: 6px 0; }
     .actions { width: 110px; text-align: right; }
   `,
@@ -92,8 +88,8 @@ import { AdminApi } from './admin-api';
 })
 export class TeamsPanel {
   private readonly adminApi = inject(AdminApi);
-  private readonly dialog = inject(MatDialog);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly confirmation = inject(Confirmation);
+  private readonly failureNotice = inject(FailureNotice);
   private readonly fb = inject(FormBuilder).nonNullable;
   protected readonly columns = ['name', 'users', 'projects', 'created', 'actions'];
   protected readonly teams = signal<AdminTeam[] | null>(null);
@@ -149,19 +145,20 @@ export class TeamsPanel {
     }
   }
 
-  protected remove(team: AdminTeam): void {
-    const question: ConfirmQuestion = { title: `Remove ${team.name}?`, message: 'The team has no people and no projects left.', confirm: 'Remove team', keep: 'Keep it', destructive: true };
-    this.dialog
-      .open(ConfirmDialog, { data: question })
-      .afterClosed()
-      .subscribe(async (yes: boolean | undefined) => {
-        if (!yes) return;
-        try {
-          await this.adminApi.deleteTeam(team.id);
-          this.teams.update((list) => list?.filter((t) => t.id !== team.id) ?? null);
-        } catch (err) {
-          this.snackBar.open(toApiFailure(err).message, 'Close', { duration: 8000 });
-        }
-      });
+  protected async remove(team: AdminTeam): Promise<void> {
+    const yes = await this.confirmation.ask({
+      title: `Remove ${team.name}?`,
+      message: 'The team has no people and no projects left.',
+      confirm: 'Remove team',
+      keep: 'Keep it',
+      destructive: true,
+    });
+    if (!yes) return;
+    try {
+      await this.adminApi.deleteTeam(team.id);
+      this.teams.update((list) => list?.filter((t) => t.id !== team.id) ?? null);
+    } catch (err) {
+      this.failureNotice.show(err);
+    }
   }
 }

@@ -3,7 +3,6 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
@@ -12,23 +11,25 @@ import { type Role, roles } from '../../../../../shared/schemas/session';
 import type { AdminTeam } from '../../../../../shared/schemas/team-admin';
 import type { AdminUser, UserUpdate } from '../../../../../shared/schemas/user-admin';
 import { toApiFailure } from '../../core/api-failure';
+import { FailureNotice } from '../../core/failure-notice';
 import { Session } from '../../core/session';
-import { ConfirmDialog, type ConfirmQuestion } from '../../shared/confirm-dialog';
+import { Confirmation } from '../../shared/confirmation';
 import { roleLabel } from '../../shell/role-label';
+import { LoadingState } from '../../shared/loading-state';
 import { AdminApi } from './admin-api';
 import { NewUserDialog } from './new-user-dialog';
 
 /** Every account: its team and role, changed in place; accounts added and removed. */
 @Component({
   selector: 'app-users-panel',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatSelectModule, MatTableModule, MatTooltipModule],
+  imports: [LoadingState, DatePipe, MatButtonModule, MatIconModule, MatSelectModule, MatTableModule, MatTooltipModule],
   template: `
-    <div class="bar">
+    <div class="tab-bar">
       <p class="section-note">Admins manage everything; analysts create and change their team's work; viewers read it.</p>
       <button mat-flat-button type="button" (click)="add()" [disabled]="!teams().length"><mat-icon>person_add</mat-icon> Add user</button>
     </div>
     @if (users(); as list) {
-      <div class="panel flush">
+      <div class="panel table-panel">
         <table mat-table [dataSource]="list" class="data-table" aria-label="Users">
           <ng-container matColumnDef="name">
             <th mat-header-cell *matHeaderCellDef>Name</th>
@@ -68,17 +69,11 @@ import { NewUserDialog } from './new-user-dialog';
           <tr mat-row *matRowDef="let row; columns: columns"></tr>
         </table>
       </div>
-    } @else if (failure(); as message) {
-      <div class="callout error" role="alert"><mat-icon aria-hidden="true">error</mat-icon><p>{{ message }}</p></div>
     } @else {
-      <mat-progress-bar mode="indeterminate" aria-label="Loading users" />
+      <app-loading-state [failure]="failure()" label="Loading users" />
     }
   `,
   styles: `
-    .bar { display: flex; justify-content: space-between; align-items: flex-start; gap: 16px; margin-bottom: 12px; }
-    .bar .section-note { margin: 8px 0 0; }
-    .flush { padding: 4px 0; overflow-x: auto; }
-    .small { font: var(--mat-sys-body-small); }
     .inline { width: 220px; font: var(--mat-sys-body-medium); }
     .actions { width: 64px; text-align: right; }
   `,
@@ -88,6 +83,8 @@ export class UsersPanel {
   private readonly adminApi = inject(AdminApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly confirmation = inject(Confirmation);
+  private readonly failureNotice = inject(FailureNotice);
   private readonly session = inject(Session);
   protected readonly me = computed(() => this.session.user()?.id ?? '');
   protected readonly roles = roles;
@@ -120,7 +117,7 @@ export class UsersPanel {
       this.users.update((list) => list?.map((u) => (u.id === updated.id ? updated : u)) ?? null);
       this.snackBar.open(`${updated.name}: ${roleLabel(updated.role)} in ${updated.team.name}.`, 'Close', { duration: 4000 });
     } catch (err) {
-      this.snackBar.open(toApiFailure(err).message, 'Close', { duration: 8000 });
+      this.failureNotice.show(err);
       this.users.update((list) => list?.map((u) => ({ ...u })) ?? null);
     }
   }
@@ -137,25 +134,20 @@ export class UsersPanel {
       });
   }
 
-  protected remove(user: AdminUser): void {
-    const question: ConfirmQuestion = {
+  protected async remove(user: AdminUser): Promise<void> {
+    const yes = await this.confirmation.ask({
       title: `Remove ${user.name}?`,
       message: `${user.email} can no longer sign in. The work of ${user.team.name} stays.`,
       confirm: 'Remove account',
       keep: 'Keep it',
       destructive: true,
-    };
-    this.dialog
-      .open(ConfirmDialog, { data: question })
-      .afterClosed()
-      .subscribe(async (yes: boolean | undefined) => {
-        if (!yes) return;
-        try {
-          await this.adminApi.deleteUser(user.id);
-          this.users.update((list) => list?.filter((u) => u.id !== user.id) ?? null);
-        } catch (err) {
-          this.snackBar.open(toApiFailure(err).message, 'Close', { duration: 8000 });
-        }
-      });
+    });
+    if (!yes) return;
+    try {
+      await this.adminApi.deleteUser(user.id);
+      this.users.update((list) => list?.filter((u) => u.id !== user.id) ?? null);
+    } catch (err) {
+      this.failureNotice.show(err);
+    }
   }
 }

@@ -2,7 +2,6 @@ import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, injec
 import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { type MatChipInputEvent, MatChipsModule } from '@angular/material/chips';
-import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -19,11 +18,12 @@ import {
 import { coordinateNameSchema, type RecordingView } from '../../../../../shared/schemas/recording';
 import { referenceTermSchema } from '../../../../../shared/schemas/sweep-description';
 import { toApiFailure } from '../../core/api-failure';
+import { FailureNotice } from '../../core/failure-notice';
 import { fieldMessage } from '../../core/schema-issues';
 import { Session } from '../../core/session';
 import { zodValidator } from '../../core/zod-validator';
 import { Breadcrumbs } from '../../shared/breadcrumbs';
-import { ConfirmDialog, type ConfirmQuestion } from '../../shared/confirm-dialog';
+import { Confirmation } from '../../shared/confirmation';
 import { CountPipe } from '../../shared/format/count-pipe';
 import { MathFormula } from '../../shared/math/math-formula';
 import { ProjectNames } from '../projects/project-names';
@@ -72,7 +72,8 @@ export class CandidateSetEditor {
   private readonly projectNames = inject(ProjectNames);
   private readonly router = inject(Router);
   private readonly snackBar = inject(MatSnackBar);
-  private readonly dialog = inject(MatDialog);
+  private readonly confirmation = inject(Confirmation);
+  private readonly failureNotice = inject(FailureNotice);
   private readonly fb = inject(FormBuilder);
   private readonly session = inject(Session);
   readonly projectId = input.required<string>();
@@ -351,28 +352,23 @@ export class CandidateSetEditor {
     }
   }
 
-  protected remove(): void {
+  protected async remove(): Promise<void> {
     const set = this.saved();
     if (!set) return;
-    const question: ConfirmQuestion = {
+    const yes = await this.confirmation.ask({
       title: 'Delete this candidate set?',
       message: `“${set.name}” is removed for everyone in the team. Sweeps launched with it keep their own copy.`,
       confirm: 'Delete candidate set',
       keep: 'Keep it',
       destructive: true,
-    };
-    this.dialog
-      .open(ConfirmDialog, { data: question })
-      .afterClosed()
-      .subscribe(async (yes: boolean | undefined) => {
-        if (!yes) return;
-        try {
-          await this.api.delete(set.id);
-          void this.router.navigate(['/projects', this.projectId(), 'candidate-sets']);
-        } catch (err) {
-          this.snackBar.open(toApiFailure(err).message, 'Close', { duration: 8000 });
-        }
-      });
+    });
+    if (!yes) return;
+    try {
+      await this.api.delete(set.id);
+      void this.router.navigate(['/projects', this.projectId(), 'candidate-sets']);
+    } catch (err) {
+      this.failureNotice.show(err);
+    }
   }
 
   private clearServerError(id: number): void {

@@ -15,7 +15,7 @@ import { ProjectContext } from './project-context';
   selector: 'app-project-candidate-sets',
   imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, CountPipe, MathFormula],
   template: `
-    <div class="bar">
+    <div class="tab-bar">
       <p class="section-note">The terms a sweep may combine into an energy, the known terms every model keeps, and the reference term.</p>
       @if (canEdit() && context.candidateSets()?.length) {
         <a mat-flat-button routerLink="new"><mat-icon>add</mat-icon> New candidate set</a>
@@ -34,11 +34,11 @@ import { ProjectContext } from './project-context';
           }
         </div>
       } @else {
-        <div class="panel flush">
+        <div class="panel table-panel">
           <table mat-table [dataSource]="sets" class="data-table" aria-label="Candidate sets">
             <ng-container matColumnDef="name">
               <th mat-header-cell *matHeaderCellDef>Candidate set</th>
-              <td mat-cell *matCellDef="let s"><a class="name" [routerLink]="[s.id]">{{ s.name }}</a></td>
+              <td mat-cell *matCellDef="let s"><a class="row-title" [routerLink]="[s.id]">{{ s.name }}</a></td>
             </ng-container>
             <ng-container matColumnDef="coordinates">
               <th mat-header-cell *matHeaderCellDef>Coordinates</th>
@@ -83,11 +83,6 @@ import { ProjectContext } from './project-context';
     }
   `,
   styles: `
-    .bar { display: flex; align-items: flex-start; justify-content: space-between; gap: 16px; margin-bottom: 12px; }
-    .bar .section-note { margin: 8px 0 0; }
-    .flush { padding: 4px 0; overflow-x: auto; }
-    .name { font: var(--mat-sys-title-small); text-decoration: none; }
-    .name:hover { text-decoration: underline; }
     .term + .term { margin-left: 12px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -17,7 +17,7 @@ import { ProjectContext } from './project-context';
   selector: 'app-project-recordings',
   imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, MatTooltipModule, CountPipe, DurationPipe, FigurePipe],
   template: `
-    <div class="bar">
+    <div class="tab-bar">
       <p class="section-note">Trajectories of the mechanism: time, the coordinates and, when measured, the forces on them.</p>
       @if (canEdit() && context.recordings()?.length) {
         <a mat-flat-button routerLink="new"><mat-icon>upload_file</mat-icon> Add recording</a>
@@ -36,12 +36,12 @@ import { ProjectContext } from './project-context';
           }
         </div>
       } @else {
-        <div class="panel flush">
+        <div class="panel table-panel">
           <table mat-table [dataSource]="recordings" class="data-table" aria-label="Recordings">
             <ng-container matColumnDef="name">
               <th mat-header-cell *matHeaderCellDef>Recording</th>
               <td mat-cell *matCellDef="let r">
-                <a class="name" [routerLink]="[r.id]">{{ r.name }}</a>
+                <a class="row-title" [routerLink]="[r.id]">{{ r.name }}</a>
                 <div class="muted small">{{ r.fileName }}</div>
               </td>
             </ng-container>
@@ -88,12 +88,6 @@ import { ProjectContext } from './project-context';
     }
   `,
   styles: `
-    .bar { display: flex; align-items: flex-start; justify-content: space-between; gap: 16px; margin-bottom: 12px; }
-    .bar .section-note { margin: 8px 0 0; }
-    .flush { padding: 4px 0; overflow-x: auto; }
-    .name { font: var(--mat-sys-title-small); text-decoration: none; }
-    .name:hover { text-decoration: underline; }
-    .small { font: var(--mat-sys-body-small); }
     .warn { color: #8a5a00; font-weight: 500; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

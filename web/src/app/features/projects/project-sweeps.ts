@@ -21,7 +21,7 @@ const refreshMs = 4000;
   selector: 'app-project-sweeps',
   imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, CountPipe, DurationPipe, FigurePipe, SweepStateBadge],
   template: `
-    <div class="bar">
+    <div class="tab-bar">
       <p class="section-note">Each sweep tries every subset of candidate terms up to a size and ranks the fits.</p>
       @if (canEdit()) {
         <a mat-flat-button routerLink="new" [class.disabled]="!ready()" [attr.aria-disabled]="!ready()" data-test="new-sweep">
@@ -43,12 +43,12 @@ const refreshMs = 4000;
           <p>{{ canEdit() ? 'Launch a sweep to search the candidate terms for the energy of this mechanism.' : 'When an analyst of your team launches a sweep, you can follow it here.' }}</p>
         </div>
       } @else {
-        <div class="panel flush">
+        <div class="panel table-panel">
           <table mat-table [dataSource]="sweeps" class="data-table" aria-label="Sweeps">
             <ng-container matColumnDef="name">
               <th mat-header-cell *matHeaderCellDef>Sweep</th>
               <td mat-cell *matCellDef="let s">
-                <a class="name" [routerLink]="[s.id]">{{ s.name }}</a>
+                <a class="row-title" [routerLink]="[s.id]">{{ s.name }}</a>
                 <div class="muted small">{{ s.candidateSet.name }}</div>
               </td>
             </ng-container>
@@ -88,13 +88,7 @@ const refreshMs = 4000;
     }
   `,
   styles: `
-    .bar { display: flex; align-items: flex-start; justify-content: space-between; gap: 16px; margin-bottom: 12px; }
-    .bar .section-note { margin: 8px 0 0; }
     .disabled { pointer-events: none; opacity: 0.5; }
-    .flush { padding: 4px 0; overflow-x: auto; }
-    .name { font: var(--mat-sys-title-small); text-decoration: none; }
-    .name:hover { text-decoration: underline; }
-    .small { font: var(--mat-sys-body-small); }
     .progress-cell { min-width: 160px; mat-progress-bar { margin: 4px 0 2px; } }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,17 +1,16 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
 import type { RecordingChannel, RecordingSamples, RecordingView } from '../../../../../shared/schemas/recording';
 import { toApiFailure } from '../../core/api-failure';
+import { FailureNotice } from '../../core/failure-notice';
 import { Session } from '../../core/session';
 import { Breadcrumbs } from '../../shared/breadcrumbs';
 import { LineChart } from '../../shared/charts/line-chart';
-import { ConfirmDialog, type ConfirmQuestion } from '../../shared/confirm-dialog';
+import { Confirmation } from '../../shared/confirmation';
 import { BytesPipe } from '../../shared/format/bytes-pipe';
 import { CountPipe } from '../../shared/format/count-pipe';
 import { FigurePipe } from '../../shared/format/figure-pipe';
@@ -104,8 +103,8 @@ export class RecordingPage {
   private readonly recordingsApi = inject(RecordingsApi);
   private readonly projectNames = inject(ProjectNames);
   private readonly router = inject(Router);
-  private readonly dialog = inject(MatDialog);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly confirmation = inject(Confirmation);
+  private readonly failureNotice = inject(FailureNotice);
   protected readonly canEdit = inject(Session).canEdit;
   readonly projectId = input.required<string>();
   readonly recordingId = input.required<string>();
@@ -146,25 +145,20 @@ export class RecordingPage {
     }
   }
 
-  protected remove(recording: RecordingView): void {
-    const question: ConfirmQuestion = {
+  protected async remove(recording: RecordingView): Promise<void> {
+    const yes = await this.confirmation.ask({
       title: 'Delete this recording?',
       message: `“${recording.name}” and its samples are removed for everyone in the team. This cannot be undone.`,
       confirm: 'Delete recording',
       keep: 'Keep it',
       destructive: true,
-    };
-    this.dialog
-      .open(ConfirmDialog, { data: question })
-      .afterClosed()
-      .subscribe(async (yes: boolean | undefined) => {
-        if (!yes) return;
-        try {
-          await this.recordingsApi.delete(recording.id);
-          void this.router.navigate(['/projects', this.projectId(), 'recordings']);
-        } catch (err) {
-          this.snackBar.open(toApiFailure(err).message, 'Close', { duration: 8000 });
-        }
-      });
+    });
+    if (!yes) return;
+    try {
+      await this.recordingsApi.delete(recording.id);
+      void this.router.navigate(['/projects', this.projectId(), 'recordings']);
+    } catch (err) {
+      this.failureNotice.show(err);
+    }
   }
 }

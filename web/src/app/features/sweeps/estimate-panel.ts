@@ -88,10 +88,8 @@ import { DurationPipe } from '../../shared/format/duration-pipe';
     .sizes { width: 100%; border-collapse: collapse; font-variant-numeric: tabular-nums; margin-bottom: 8px; }
     .sizes th, .sizes td { padding: 4px 8px; text-align: right; border-bottom: 1px solid var(--mat-sys-outline-variant); }
     .sizes thead th { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }
-    .small { font: var(--mat-sys-body-small); margin: 4px 0; }
+    .small { margin: 4px 0; }
     .callout { margin: 10px 0 0; }
-    .warning { display: flex; gap: 6px; margin: 8px 0 0; font: var(--mat-sys-body-small); color: #6b4a00; }
-    .warning mat-icon { flex: none; width: 18px; height: 18px; font-size: 18px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

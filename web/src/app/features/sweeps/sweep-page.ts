@@ -1,19 +1,18 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, type Signal, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { type SweepDetail, endedSweepStates } from '../../../../../shared/schemas/sweep';
 import type { SweepLeaderboard } from '../../../../../shared/schemas/sweep-leaderboard';
 import { toApiFailure } from '../../core/api-failure';
+import { FailureNotice } from '../../core/failure-notice';
 import { LiveSweeps, type LiveSweep } from '../../core/live-sweeps';
 import { Session } from '../../core/session';
 import { Breadcrumbs } from '../../shared/breadcrumbs';
 import type { ChartSeries } from '../../shared/charts/line-chart';
 import { LineChart } from '../../shared/charts/line-chart';
-import { ConfirmDialog, type ConfirmQuestion } from '../../shared/confirm-dialog';
+import { Confirmation } from '../../shared/confirmation';
 import { MathFormula } from '../../shared/math/math-formula';
 import { SweepStateBadge } from '../../shared/sweep-state-badge';
 import { ProjectNames } from '../projects/project-names';
@@ -61,8 +60,8 @@ export class SweepPage {
   private readonly sweepsApi = inject(SweepsApi);
   private readonly liveSweeps = inject(LiveSweeps);
   private readonly projectNames = inject(ProjectNames);
-  private readonly dialog = inject(MatDialog);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly confirmation = inject(Confirmation);
+  private readonly failureNotice = inject(FailureNotice);
   protected readonly canEdit = inject(Session).canEdit;
   readonly projectId = input.required<string>();
   readonly sweepId = input.required<string>();
@@ -152,29 +151,24 @@ export class SweepPage {
     return dropped.map((d) => d.term).join(', ');
   }
 
-  protected cancel(): void {
+  protected async cancel(): Promise<void> {
     const sweep = this.sweep();
     if (!sweep) return;
-    const question: ConfirmQuestion = {
+    const yes = await this.confirmation.ask({
       title: 'Cancel this sweep?',
       message: `“${sweep.name}” stops at the workers' next progress report. The subsets tried so far stay on its leaderboard, but it cannot be resumed.`,
       confirm: 'Cancel sweep',
       keep: 'Keep it running',
       destructive: true,
-    };
-    this.dialog
-      .open(ConfirmDialog, { data: question })
-      .afterClosed()
-      .subscribe(async (yes: boolean | undefined) => {
-        if (!yes) return;
-        this.cancelling.set(true);
-        try {
-          this.cancelled.set(await this.sweepsApi.cancel(sweep.id));
-        } catch (err) {
-          this.snackBar.open(toApiFailure(err).message, 'Close', { duration: 8000 });
-        } finally {
-          this.cancelling.set(false);
-        }
-      });
+    });
+    if (!yes) return;
+    this.cancelling.set(true);
+    try {
+      this.cancelled.set(await this.sweepsApi.cancel(sweep.id));
+    } catch (err) {
+      this.failureNotice.show(err);
+    } finally {
+      this.cancelling.set(false);
+    }
   }
 }
