@@ -25,6 +25,7 @@ const actionLabels: Partial<Record<AuditAction, string>> = {
   'project.updated': 'Project changed',
   'project.deleted': 'Project deleted',
   'demo.seeded': 'Demo data added',
+  'demo.work_seeded': 'Demo work added',
   'recording.uploaded': 'Recording added',
   'recording.deleted': 'Recording deleted',
   'candidate_set.created': 'Candidate set created',

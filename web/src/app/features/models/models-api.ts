@@ -1,17 +1,20 @@
 import { Injectable, inject } from '@angular/core';
 import { type ModelDetails, modelDetailsSchema } from '../../../../../shared/schemas/model-details';
+import { type ModelExportFormat, modelExportFormats as formats } from '../../../../../shared/schemas/model-request';
 import { ApiClient, apiUrl } from '../../core/api-client';
 
-/** The formats a model can be downloaded in, with how they read on screen. */
-export const modelExportFormats = [
-  { format: 'json', label: 'Model file (JSON)', icon: 'data_object' },
-  { format: 'latex', label: 'LaTeX', icon: 'functions' },
-  { format: 'python', label: 'Python', icon: 'code' },
-  { format: 'typescript', label: 'TypeScript', icon: 'code' },
-  { format: 'c', label: 'C', icon: 'memory' },
-  { format: 'report', label: 'Report', icon: 'description' },
-] as const;
-export type ModelExportFormat = (typeof modelExportFormats)[number]['format'];
+/** How each download format reads on screen; the record type makes a format added to the API need a label here. */
+const looks: Record<ModelExportFormat, { label: string; icon: string }> = {
+  json: { label: 'Model file (JSON)', icon: 'data_object' },
+  latex: { label: 'LaTeX', icon: 'functions' },
+  python: { label: 'Python', icon: 'code' },
+  typescript: { label: 'TypeScript', icon: 'code' },
+  c: { label: 'C', icon: 'memory' },
+  report: { label: 'Report', icon: 'description' },
+};
+
+/** The formats a model can be downloaded in, in the API's order, with how they read on screen. */
+export const modelExportFormats = formats.map((format) => ({ format, ...looks[format] }));
 
 /** One worked-out model of a finished sweep (by its place in the sweep's result) and its downloads. */
 @Injectable({ providedIn: 'root' })
