@@ -1,28 +1,16 @@
 import { expect } from 'chai';
-import { execFile } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { rmSync } from 'node:fs';
 import path from 'node:path';
-import { promisify } from 'node:util';
 import { discoveryResultSchema, type DiscoveryResult } from '../../shared/schemas/discovery-result.js';
-import { sweepDetailSchema, type SweepDetail, type SweepRunSettingsInput } from '../../shared/schemas/sweep.js';
+import type { SweepRunSettingsInput } from '../../shared/schemas/sweep.js';
 import { sweepLeaderboardSchema } from '../../shared/schemas/sweep-leaderboard.js';
 import { cartPole } from '../support/mechanisms/handbook-mechanisms.js';
-import { createTeamWithUsers, signIn, type TestAgent } from '../support/fixtures.js';
-import {
-  cartPoleCsv,
-  cartPoleGenerator,
-  cartPoleTrainingRuns,
-  cartPoleValidationRun,
-  createGeneratedCandidateSet,
-  createProject,
-  uploadRecording,
-} from '../support/sweep-scenario.js';
+import { runModelSweep, type ModelSweep } from '../support/model-sweep.js';
+import { runConserva } from '../support/run-cli.js';
+import { cartPoleGenerator } from '../support/sweep-scenario.js';
 import { generousAllowance, startTestApp, type TestApp } from '../support/test-app.js';
-import { eventually, startTestWorker, type TestWorker } from '../support/worker-processes.js';
 import { expectSameTerms } from '../unit/discovery/recovery-harness.js';
 
-const root = path.resolve(import.meta.dirname, '../..');
 const settings: SweepRunSettingsInput = {
   sizes: { min: 1, max: 5 },
   form: 'balance',
@@ -30,73 +18,36 @@ const settings: SweepRunSettingsInput = {
   top: 5,
 };
 
-async function finished(agent: TestAgent, sweepId: string): Promise<SweepDetail> {
-  return eventually('the sweep to end', async () => {
-    const sweep = sweepDetailSchema.parse(await (await agent.get(`/api/sweeps/${sweepId}`)).json());
-    return ['finished', 'failed', 'cancelled', 'halted'].includes(sweep.state) ? sweep : undefined;
-  }, 120_000, 250);
-}
-
 describe('a sweep launched through the API agrees with the command line', () => {
   let app: TestApp;
-  let workers: TestWorker[] = [];
-  let folder: string;
+  let run: ModelSweep | undefined;
 
   before(async () => {
     app = await startTestApp({ allowanceDefaults: generousAllowance });
-    folder = mkdtempSync(path.join(tmpdir(), 'conserva-parity-'));
   });
   after(async () => {
-    await Promise.all(workers.map((w) => w.stop()));
+    if (run) rmSync(run.folder, { recursive: true, force: true });
     await app?.close();
-    rmSync(folder, { recursive: true, force: true });
   });
 
   it('finds the same best model, counts and ranking as `conserva discover` on the same files', async () => {
-    const team = await createTeamWithUsers(app.orm, 'Parity lab');
-    const agent = await signIn(app.baseUrl, team.analyst.email, team.password);
-    const projectId = await createProject(agent, 'Cart-pole rig');
-    const runs = [...cartPoleTrainingRuns.map((run) => ({ run, role: 'train' as const })), { run: cartPoleValidationRun, role: 'validate' as const }];
-    const files = runs.map(({ run, role }, i) => ({ file: `run-${i + 1}.csv`, role, csv: cartPoleCsv(run) }));
-    const recordings = [];
-    for (const { file, csv } of files) {
-      writeFileSync(path.join(folder, file), csv);
-      recordings.push(await uploadRecording(agent, projectId, csv, file));
-    }
-    const generator = cartPoleGenerator({ velocityDegree: 3 });
-    const set = await createGeneratedCandidateSet(agent, projectId, 'Generated, velocity degree 3', generator);
-    expect(set.candidateCount).to.equal(58);
-
-    workers = await Promise.all([startTestWorker({ shardSubsets: 400_000 }), startTestWorker({ shardSubsets: 400_000 })]);
-    const launched = await agent.post(`/api/projects/${projectId}/sweeps`, {
-      candidateSetId: set.id,
-      trainingRecordingIds: recordings.slice(0, 3).map((r) => r.id),
-      validationRecordingIds: [recordings[3]!.id],
+    // Two worker processes, shards of 400,000 subsets, 58 generated candidates (velocity degree 3), sizes 1 to 5.
+    run = await runModelSweep(app, 'Parity lab', 'Cart-pole rig', {
+      generator: cartPoleGenerator({ velocityDegree: 3 }),
       settings,
+      workers: 2,
+      shardSubsets: 400_000,
     });
-    expect(launched.status, await launched.clone().text()).to.equal(201);
-    const sweep = await finished(agent, sweepDetailSchema.parse(await launched.json()).id);
-    expect(sweep.state, sweep.stateReason ?? '').to.equal('finished');
+    const { candidateSet, sweep, analyst, folder } = run;
+    expect(candidateSet.candidateCount).to.equal(58);
     expect(sweep.shards.length).to.be.above(5);
     expect(sweep.shards.every((s) => s.state === 'done')).to.equal(true);
-    const board = sweepLeaderboardSchema.parse(await (await agent.get(`/api/sweeps/${sweep.id}/leaderboard`)).json());
+    const board = sweepLeaderboardSchema.parse(await (await analyst.get(`/api/sweeps/${sweep.id}/leaderboard`)).json());
 
-    // The same sweep from the command line: description and CSV files written as a user would.
-    writeFileSync(
-      path.join(folder, 'description.json'),
-      JSON.stringify({
-        coordinates: ['x', 'th'],
-        terms: set.terms,
-        ...settings,
-        recordings: files.map(({ file, role }) => ({ file, role })),
-        columns: { time: 't_s', x: 'cart_x_m', th: 'pole_angle_rad', forces: { x: 'cart_force_N' } },
-      }),
-    );
-    const { stdout } = await promisify(execFile)(process.execPath, ['--import', 'tsx', 'worker/src/cli/main.ts', 'discover', path.join(folder, 'description.json'), '--json'], {
-      cwd: root,
-      maxBuffer: 64 * 1024 * 1024,
-    });
-    const cli: DiscoveryResult = discoveryResultSchema.parse(JSON.parse(stdout));
+    // The same sweep from the command line, on the description and CSV files runModelSweep wrote as a user would.
+    const discovered = await runConserva(['discover', path.join(folder, 'description.json'), '--json'], { timeoutMs: 120_000 });
+    expect(discovered.status, discovered.stderr).to.equal(0);
+    const cli: DiscoveryResult = discoveryResultSchema.parse(JSON.parse(discovered.stdout));
     const service = board.result!;
     expect(service).to.not.equal(null);
     expect(service.evaluated).to.equal(cli.evaluated);

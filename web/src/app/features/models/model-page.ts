@@ -14,7 +14,7 @@ import { FigurePipe } from '../../shared/format/figure-pipe';
 import { MathFormula } from '../../shared/math/math-formula';
 import { ProjectNames } from '../projects/project-names';
 import { SweepsApi } from '../sweeps/sweeps-api';
-import { ModelsApi, modelExportFormats } from './models-api';
+import { ModelsApi, modelDownloads } from './models-api';
 import { RecordingCheckView } from './recording-check-view';
 
 /**
@@ -57,7 +57,7 @@ export class ModelPage {
   protected readonly caution = computed(() => this.details()?.caution ?? safetyCaution);
   protected readonly title = computed(() => (this.index() === 0 ? 'Best model' : `Model ${this.index() + 1}`));
   protected readonly exports = computed(() =>
-    modelExportFormats.map((f) => ({ ...f, url: this.modelsApi.exportUrl(this.sweepId(), this.index(), f.format) })),
+    modelDownloads.map((f) => ({ ...f, url: this.modelsApi.exportUrl(this.sweepId(), this.index(), f.format) })),
   );
   protected readonly coefficients = computed(() => {
     const doc = this.details()?.document;

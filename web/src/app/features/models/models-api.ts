@@ -1,6 +1,6 @@
 import { Injectable, inject } from '@angular/core';
 import { type ModelDetails, modelDetailsSchema } from '../../../../../shared/schemas/model-details';
-import { type ModelExportFormat, modelExportFormats as formats } from '../../../../../shared/schemas/model-request';
+import { type ModelExportFormat, modelExportFormats } from '../../../../../shared/schemas/model-request';
 import { ApiClient, apiUrl } from '../../core/api-client';
 
 /** How each download format reads on screen; the record type makes a format added to the API need a label here. */
@@ -13,8 +13,8 @@ const looks: Record<ModelExportFormat, { label: string; icon: string }> = {
   report: { label: 'Report', icon: 'description' },
 };
 
-/** The formats a model can be downloaded in, in the API's order, with how they read on screen. */
-export const modelExportFormats = formats.map((format) => ({ format, ...looks[format] }));
+/** The shared list of formats a model can be downloaded in, in the API's order, with how each reads on screen. */
+export const modelDownloads = modelExportFormats.map((format) => ({ format, ...looks[format] }));
 
 /** One worked-out model of a finished sweep (by its place in the sweep's result) and its downloads. */
 @Injectable({ providedIn: 'root' })
