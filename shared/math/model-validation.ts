@@ -2,6 +2,7 @@ import type { ModelValidation, TrajectoryComparison } from '../schemas/model-val
 import type { ModelEnergy } from './model-energy.js';
 import { isPassive, type ModelSimulation } from './model-simulation.js';
 import type { Recording } from './recording.js';
+import { thinnedIndices } from './thinned-indices.js';
 
 export interface ValidationOptions {
   /** Error in coordinate units after which the model counts as having left the recording (every coordinate). */
@@ -93,7 +94,7 @@ function energyDrift(simulation: ModelSimulation, energy: ModelEnergy): ModelVal
 
 /**
  * Simulated and recorded positions and their difference for plots and output, thinned to at most `maxPoints`
- * samples (every k-th sample, the last one always kept).
+ * samples (thinnedIndices: every k-th sample, the last one always kept).
  */
 export function trajectoryComparison(
   recording: Recording,
@@ -101,11 +102,7 @@ export function trajectoryComparison(
   simulation: ModelSimulation,
   maxPoints: number,
 ): TrajectoryComparison {
-  const count = simulation.time.length;
-  const stride = Math.max(1, Math.ceil(count / Math.max(2, maxPoints)));
-  const picked: number[] = [];
-  for (let k = 0; k < count; k += stride) picked.push(k);
-  if (count > 0 && picked[picked.length - 1] !== count - 1) picked.push(count - 1);
+  const picked = thinnedIndices(simulation.time.length, maxPoints).indices;
   const errors = trajectoryErrors(recording, simulation);
   const byCoordinate = (series: (i: number) => ArrayLike<number>) =>
     Object.fromEntries(coordinates.map((c, i) => [c, picked.map((k) => series(i)[k]!)]));

@@ -17,7 +17,7 @@ import { parseInput } from '../http/parse-body.js';
 import { parseId } from '../http/parse-id.js';
 import { inspectCsv } from '../recordings/csv-inspection.js';
 import { parseRecording } from '../recordings/recording-parse.js';
-import { thinnedIndices } from '../recordings/recording-thinning.js';
+import { thinnedIndices } from '../../../shared/math/thinned-indices.js';
 import { recordingUseCounts } from '../recordings/recording-usage.js';
 import { toRecordingView } from '../recordings/recording-view.js';
 import { storeRecording } from '../recordings/recording-store.js';
