@@ -1,4 +1,4 @@
-import type { ModelDetails, RecordingCheck } from '../schemas/model-details.js';
+import type { FitResiduals, ModelDetails, RecordingCheck } from '../schemas/model-details.js';
 import type { MassMatrixCheck } from '../schemas/model-validation.js';
 import { escapeMarkup as esc, lineChartSvg } from './svg-line-chart.js';
 
@@ -99,10 +99,38 @@ function plots(check: RecordingCheck, coordinates: readonly string[]): string {
   return charts.map((svg) => `<figure>${svg}</figure>`).join('\n');
 }
 
+/** The residual's size relative to what it balances: the input power when there is any, else the energy's parts. */
+function relativeResidual(r: FitResiduals['recordings'][number]): string {
+  if (r.powerRms > 0) return `${number(r.rms / r.powerRms, 3)} of the power`;
+  return r.partsRms > 0 ? `${number(r.rms / r.partsRms, 3)} of the energy's parts` : '–';
+}
+
+function residualSection(residuals: FitResiduals | undefined): string {
+  if (!residuals) return '<p class="muted">Not worked out for this model.</p>';
+  if (residuals.recordings.length === 0) return '<p class="muted">No recording could be used.</p>';
+  const rows = residuals.recordings.map(
+    (r) =>
+      `<tr><td>${esc(r.recording)} (${r.role})</td><td class="number">${r.rows}</td><td class="number">${number(r.rms)}</td><td class="number">${number(r.max)}</td><td>${esc(relativeResidual(r))}</td></tr>`,
+  );
+  const derivative = residuals.form === 'derivative';
+  const how = derivative
+    ? 'Derivative form: per sample, the rate of change of the fitted energy less the input power (Gamma c - P).'
+    : `Balance form: per window of ${residuals.balance?.window ?? '?'} sample intervals every ${residuals.balance?.stride ?? '?'} samples, the change of the fitted energy less the integrated input power, plotted at the end of the window.`;
+  const chart = lineChartSvg({
+    title: 'Fit residual over time',
+    xLabel: 'time',
+    yLabel: derivative ? 'dE/dt - P' : 'change of E - integral of P',
+    series: residuals.recordings.map((r) => ({ name: r.recording, x: r.time, y: r.residual })),
+  });
+  return `<p class="muted">${esc(how)} The rms is taken over every row; the plot is thinned.</p>
+<table><thead><tr><th>recording</th><th>rows</th><th>rms</th><th>largest</th><th>rms relative</th></tr></thead><tbody>${rows.join('')}</tbody></table>
+<figure>${chart}</figure>`;
+}
+
 /**
  * The printable report page of a model (work it out first with workOutModelDetails): caution, energy,
- * Lagrangian, equations of motion as plain math and as LaTeX source, coefficient table, mass-matrix check,
- * validation figures, plots of simulated against recorded trajectories and of the error over time, warnings,
+ * Lagrangian, equations of motion as plain math and as LaTeX source, coefficient table, the fit's
+ * energy-balance residual per recording with its plot, mass-matrix check, validation figures, plots of simulated against recorded trajectories and of the error over time, warnings,
  * provenance. Pure: returns the HTML text.
  */
 export function exportReport(details: ModelDetails): string {
@@ -130,6 +158,9 @@ ${coefficientTable(details)}
 
 <h2>Equations of motion</h2>
 ${equationsBlock(details)}
+
+<h2>Fit residual of the energy balance</h2>
+${residualSection(details.fitResiduals)}
 
 <h2>Mass matrix on the recorded states</h2>
 ${massMatrixTable(details.massMatrixChecks)}

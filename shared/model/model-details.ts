@@ -6,11 +6,12 @@ import { simulateModel, type ModelSimulation } from '../math/model-simulation.js
 import { trajectoryComparison, validateSimulation } from '../math/model-validation.js';
 import type { Recording } from '../math/recording.js';
 import { recordingStates } from '../math/recording-states.js';
-import type { ModelDetails, RecordingCheck } from '../schemas/model-details.js';
+import type { FitResidual, ModelDetails, RecordingCheck } from '../schemas/model-details.js';
 import type { ModelDocument } from '../schemas/model-document.js';
 import type { MassMatrixCheck, ModelCheckSettings } from '../schemas/model-validation.js';
-import { defaultDerivativeSettings } from '../schemas/sweep-description.js';
+import { defaultDerivativeSettings, type BalanceSettings } from '../schemas/sweep-description.js';
 import { modelLatex } from './export-latex.js';
+import { fitResidualOn, residualFormOf, residualModel, type ResidualModel } from './fit-residual.js';
 import { documentEquations } from './model-document.js';
 import { safetyCaution } from './safety-caution.js';
 
@@ -28,6 +29,10 @@ export interface ModelCheckOptions {
   rtol?: number;
   /** Samples kept per plotted series (default 600). */
   plotPoints?: number;
+  /** Regression form of the fit residual; default: the form the document's sweep used, else balance. */
+  form?: 'derivative' | 'balance';
+  /** Balance windows of the fit residual; default: the document's sweep's, else the description defaults. */
+  balance?: BalanceSettings;
 }
 
 /** A model compiled once for checks on many recordings. */
@@ -37,12 +42,19 @@ export interface CompiledModel {
   energy: ModelEnergy;
   settings: ModelCheckSettings;
   plotPoints: number;
+  /** The energy compiled for its balance residual in the sweep's form. */
+  residual: ResidualModel;
 }
 
 /** Compiles a model document's equations of motion and energy with the check settings filled in. */
 export function compileModel(document: ModelDocument, options: ModelCheckOptions = {}): CompiledModel {
   const threshold = options.threshold ?? DEFAULT_ERROR_THRESHOLD;
   if (!(threshold > 0) || !Number.isFinite(threshold)) throw new DiscoveryInputError(`The error threshold must be a positive number (got ${threshold}).`);
+  const estimator = options.estimator ?? document.provenance.estimator ?? defaultDerivativeSettings;
+  const residualForm = residualFormOf(document, {
+    ...(options.form ? { form: options.form } : {}),
+    ...(options.balance ? { balance: options.balance } : {}),
+  });
   return {
     document,
     dynamics: compileModelDynamics(documentEquations(document)),
@@ -53,11 +65,12 @@ export function compileModel(document: ModelDocument, options: ModelCheckOptions
     ),
     settings: {
       threshold,
-      estimator: options.estimator ?? document.provenance.estimator ?? defaultDerivativeSettings,
+      estimator,
       forceInterpolation: options.forceInterpolation ?? 'cubic',
       rtol: options.rtol ?? DEFAULT_SIMULATION_RTOL,
     },
     plotPoints: options.plotPoints ?? DEFAULT_PLOT_POINTS,
+    residual: residualModel(document, residualForm, estimator),
   };
 }
 
@@ -101,8 +114,8 @@ export function checkModelOnRecording(model: CompiledModel, recording: Recording
 
 /**
  * Everything the model view needs about one model (shared/schemas/model-details.ts), computed once: the
- * document, its formulas as LaTeX, the mass-matrix check on every recording, and the simulation against every
- * validation recording (against the training recordings when there is none, with a warning). A recording that
+ * document, its formulas as LaTeX, the mass-matrix check and the fit's energy-balance residual on every
+ * recording, and the simulation against every validation recording (against the training recordings when there is none, with a warning). A recording that
  * cannot be used is named in the warnings instead of failing the whole. Pure: no I/O.
  */
 export function workOutModelDetails(document: ModelDocument, recordings: readonly Recording[], options: ModelCheckOptions = {}): ModelDetails {
@@ -120,7 +133,14 @@ export function workOutModelDetails(document: ModelDocument, recordings: readonl
   }
   const massMatrixChecks: MassMatrixCheck[] = [];
   const validations: RecordingCheck[] = [];
+  const residuals: FitResidual[] = [];
   for (const recording of recordings) {
+    try {
+      residuals.push(fitResidualOn(model.residual, recording, model.plotPoints));
+    } catch (error) {
+      if (!(error instanceof DiscoveryInputError)) throw error;
+      warnings.push(`No fit residual on ${recording.name}: ${error.message}`);
+    }
     let outcome: RecordingOutcome;
     try {
       outcome = checkModelOnRecording(model, recording, simulated.includes(recording));
@@ -145,6 +165,11 @@ export function workOutModelDetails(document: ModelDocument, recordings: readonl
     settings: model.settings,
     massMatrixChecks,
     validations,
+    fitResiduals: {
+      form: model.residual.settings.form,
+      balance: model.residual.settings.form === 'balance' ? model.residual.settings.balance : null,
+      recordings: residuals,
+    },
     warnings,
     caution: safetyCaution,
   };

@@ -87,6 +87,52 @@ describe('model details (everything the model view shows)', function () {
     expect(details.validations).to.have.length(1);
   });
 
+  describe('the fit residual (energy balance dE/dt = P, method.md section 2)', () => {
+    it('is worked out on every recording in the form of the sweep, small against the sizes it balances', () => {
+      // The document names the balance form and no windows: the description defaults (20 intervals every 5 samples).
+      const details = workOutModelDetails(document, [train, held]);
+      const residuals = details.fitResiduals!;
+      expect(residuals.form).to.equal('balance');
+      expect(residuals.balance).to.deep.equal({ window: 20, stride: 5, integration: 'simpson' });
+      expect(residuals.recordings.map((r) => [r.recording, r.role])).to.deep.equal([['train.csv', 'train'], ['held-out.csv', 'validate']]);
+      const [forced, passive] = residuals.recordings;
+      // 401 samples less 4 trimmed at each end by the window-9 estimator leave 393; windows start every 5
+      // samples while 20 intervals still fit: floor((393 - 1 - 20) / 5) + 1 = 75.
+      expect(forced!.rows).to.equal(75);
+      expect(forced!.rms).to.be.below(1e-3 * forced!.powerRms);
+      expect(passive!.powerRms).to.equal(0);
+      expect(passive!.rms).to.be.below(1e-3 * passive!.partsRms);
+    });
+
+    it('follows the form and windows the sweep ran with, and thins the series', () => {
+      const derivative = workOutModelDetails(
+        { ...document, provenance: { ...document.provenance, form: 'derivative' } },
+        [train],
+        { plotPoints: 100 },
+      ).fitResiduals!;
+      expect(derivative.form).to.equal('derivative');
+      expect(derivative.balance).to.equal(null);
+      const series = derivative.recordings[0]!;
+      expect(series.rows).to.equal(393);
+      expect(series.time.length).to.be.at.most(100);
+      expect(series.time.at(-1)).to.equal(train.time[400 - 4]);
+      const windows = { window: 40, stride: 10, integration: 'trapezoid' as const };
+      const balance = workOutModelDetails({ ...document, provenance: { ...document.provenance, sweep: { balance: windows } } }, [train]).fitResiduals!;
+      expect(balance.balance).to.deep.equal(windows);
+    });
+
+    it('grows large when a coefficient is 5 % wrong', () => {
+      const wrong = { ...document, energy: { ...document.energy, terms: document.energy.terms.map((t) => (t.term === 'cos(th2)' ? { ...t, coefficient: t.coefficient * 1.05 } : t)) } };
+      const forced = workOutModelDetails(wrong, [train]).fitResiduals!.recordings[0]!;
+      expect(forced.rms).to.be.above(5e-2 * forced.powerRms);
+    });
+
+    it('is optional in stored details, which were saved before it existed', () => {
+      const { fitResiduals: _left, ...stored } = workOutModelDetails(document, [held]);
+      expect(modelDetailsSchema.safeParse(JSON.parse(JSON.stringify(stored))).success).to.equal(true);
+    });
+  });
+
   describe('the printable report', () => {
     const html = exportReport(workOutModelDetails(document, [train, held], { threshold: 0.01 }));
 
@@ -103,9 +149,10 @@ describe('model details (everything the model view shows)', function () {
       expect(html).to.contain('\\ddot{\\theta}_{1}');
       for (const term of Object.keys(doublePendulum.lagrangianTerms)) expect(html).to.contain(`<code>${term}</code>`);
       expect(html).to.contain('held-out.csv (validate)');
-      // Per coordinate: simulated against recorded; and one chart of the error over time.
-      expect(html.match(/<svg /g)).to.have.length(3);
+      // Per coordinate: simulated against recorded; one chart of the error over time; one of the fit residual.
+      expect(html.match(/<svg /g)).to.have.length(4);
       expect(html).to.contain('error over time');
+      expect(html).to.contain('Fit residual over time').and.to.contain('Balance form: per window of 20 sample intervals every 5 samples');
     });
 
     it('escapes text from the model (the title here)', () => {
