@@ -74,6 +74,33 @@ describe('model details (GET /api/sweeps/:sweepId/models/:modelIndex)', () => {
     expect(model.latex.equations).to.have.length(2);
   });
 
+  it('carries the fit residual of the energy balance on every recording, in the sweep\'s form', async () => {
+    const { sweep, analyst } = run;
+    const residuals = (await details(analyst, sweep.id, 0)).fitResiduals!;
+    expect(residuals.form).to.equal('balance');
+    expect(residuals.recordings.map((r) => [r.recording, r.role])).to.deep.equal(sweep.description.recordings.map((r) => [r.name, r.role]));
+    // The best model is the handbook cart-pole energy (see below), so dE/dt = P holds on the forced runs up to
+    // the derivative estimates (energy balance, method.md section 2).
+    for (const r of residuals.recordings) {
+      expect(r.powerRms, r.recording).to.be.above(0);
+      expect(r.rms, r.recording).to.be.below(1e-3 * r.powerRms);
+      expect(r.time.length).to.equal(r.residual.length).and.to.be.within(2, 600);
+    }
+  });
+
+  it('works a model stored before the fit residual existed out again once, keeping its time of writing', async () => {
+    const { sweep, analyst } = run;
+    const first = await details(analyst, sweep.id, 0);
+    const { fitResiduals: _dropped, ...older } = first;
+    await app.orm.em.fork().nativeUpdate(SweepModel, { sweep: sweep.id, modelIndex: 0 }, { details: older as ModelDetails });
+    const renewed = await details(analyst, sweep.id, 0);
+    expect(renewed.fitResiduals).to.deep.equal(first.fitResiduals);
+    expect(renewed.document.createdAt).to.equal(first.document.createdAt);
+    expect(await storedRows(sweep.id, 0)).to.equal(1);
+    const row = await app.orm.em.fork().findOneOrFail(SweepModel, { sweep: sweep.id, modelIndex: 0 });
+    expect(row.details.fitResiduals).to.deep.equal(first.fitResiduals);
+  });
+
   it('stores a model once when first requests arrive together', async () => {
     const { sweep, analyst } = run;
     const viewer = await signIn(app.baseUrl, run.team.viewer.email, run.team.password);

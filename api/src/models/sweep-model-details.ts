@@ -39,11 +39,17 @@ export function resultModelOf(sweep: Sweep, modelIndex: number): DiscoveredModel
   return model;
 }
 
+/** Stored details lack what was added to the model view since they were worked out (the fit residual). */
+function isOutdated(details: ModelDetails): boolean {
+  return details.fitResiduals === undefined;
+}
+
 /**
  * Everything the model view shows about one model of a finished sweep (shared/model/model-details.ts). Worked
  * out on the first request and stored; later requests read the stored row. Concurrent first requests wait for
  * each other on an advisory lock keyed by sweep and index, so the model is worked out and stored once; the
- * unique (sweep, model index) pair is the last guard.
+ * unique (sweep, model index) pair is the last guard. A row stored before the fit residual existed is worked
+ * out again once (keeping its time of writing) and replaced.
  */
 export async function sweepModelDetails(
   em: EntityManager,
@@ -54,25 +60,26 @@ export async function sweepModelDetails(
 ): Promise<ModelDetails> {
   const model = resultModelOf(sweep, modelIndex);
   const stored = await findStored(em.fork(), sweep.id, modelIndex);
-  if (stored) return stored;
+  if (stored && !isOutdated(stored.details)) return stored.details;
   try {
     return await em.fork().transactional(async (tx) => {
       await tx.execute('select pg_advisory_xact_lock(hashtext(?), ?)', [`sweep-model:${sweep.id}`, modelIndex]);
       const storedMeanwhile = await findStored(tx, sweep.id, modelIndex);
-      if (storedMeanwhile) return storedMeanwhile;
-      const details = await workOut(pool, await modelInput(tx, sweep, project, model, modelIndex));
-      tx.create(SweepModel, { sweep: sweep.id, modelIndex, details });
+      if (storedMeanwhile && !isOutdated(storedMeanwhile.details)) return storedMeanwhile.details;
+      const input = await modelInput(tx, sweep, project, model, modelIndex, storedMeanwhile?.details.document.createdAt ?? null);
+      const details = await workOut(pool, input);
+      if (storedMeanwhile) storedMeanwhile.details = details;
+      else tx.create(SweepModel, { sweep: sweep.id, modelIndex, details });
       return details;
     });
   } catch (error) {
     if (!(error instanceof UniqueConstraintViolationException)) throw error;
-    return (await findStored(em.fork(), sweep.id, modelIndex))!;
+    return (await findStored(em.fork(), sweep.id, modelIndex))!.details;
   }
 }
 
-async function findStored(em: EntityManager, sweepId: string, modelIndex: number): Promise<ModelDetails | null> {
-  const row = await em.findOne(SweepModel, { sweep: sweepId, modelIndex });
-  return row?.details ?? null;
+async function findStored(em: EntityManager, sweepId: string, modelIndex: number): Promise<SweepModel | null> {
+  return em.findOne(SweepModel, { sweep: sweepId, modelIndex }, { refresh: true });
 }
 
 async function workOut(pool: ModelDetailsPool, input: ModelDetailsInput): Promise<ModelDetails> {
@@ -84,7 +91,14 @@ async function workOut(pool: ModelDetailsPool, input: ModelDetailsInput): Promis
 }
 
 /** The entry with the sweep's coordinates, its provenance (settings, estimator, recordings) and its recordings. */
-async function modelInput(em: EntityManager, sweep: Sweep, project: Project, model: DiscoveredModel, modelIndex: number): Promise<ModelDetailsInput> {
+async function modelInput(
+  em: EntityManager,
+  sweep: Sweep,
+  project: Project,
+  model: DiscoveredModel,
+  modelIndex: number,
+  createdAt: string | null,
+): Promise<ModelDetailsInput> {
   const settings = settingsOfSweep(sweep.description);
   const provenance: ModelProvenance = {
     source: 'conserva sweep',
@@ -99,7 +113,7 @@ async function modelInput(em: EntityManager, sweep: Sweep, project: Project, mod
     coordinates: sweep.description.coordinates,
     provenance,
     title: `${project.name}, ${sweep.name}, model ${modelIndex + 1}`.slice(0, 200),
-    createdAt: new Date().toISOString(),
+    createdAt: createdAt ?? new Date().toISOString(),
     recordings: await loadSignalRecordings(em, sweep.description),
   };
 }
