@@ -15,12 +15,13 @@ import { MathFormula } from '../../shared/math/math-formula';
 import { ProjectNames } from '../projects/project-names';
 import { SweepsApi } from '../sweeps/sweeps-api';
 import { ModelsApi, modelDownloads } from './models-api';
+import { FitResidualView } from './fit-residual-view';
 import { RecordingCheckView } from './recording-check-view';
 
 /**
  * One model worked out from a sweep: the caution first, then energy, Lagrangian and equations of motion as
- * mathematics, the coefficients, the scores, the simulation against each validation recording, the mass-matrix
- * check, and downloads in every export format.
+ * mathematics, the coefficients, the fit residual of the energy balance, the scores, the simulation against
+ * each validation recording, the mass-matrix check, and downloads in every export format.
  */
 @Component({
   selector: 'app-model-page',
@@ -34,6 +35,7 @@ import { RecordingCheckView } from './recording-check-view';
     CountPipe,
     FigurePipe,
     MathFormula,
+    FitResidualView,
     RecordingCheckView,
   ],
   templateUrl: './model-page.html',
