@@ -58,7 +58,10 @@ export class LiveHub {
   private readonly clients = new Set<LiveClient>();
   private readonly feeds = new Map<string, SweepFeed>();
   private readonly pendingProgress = new Map<string, NodeJS.Timeout>();
-  /** Per sweep, the events being turned into messages: one after the other, so messages keep the events' order. */
+  /**
+   * Per sweep, the subscriptions and events being turned into messages, one after the other: messages keep the
+   * events' order, and an event that arrives while a subscription reads the sweep is forwarded after its state.
+   */
   private readonly eventChains = new Map<string, Promise<void>>();
   private listener: pg.Client | null = null;
   private listening: Promise<void> | null = null;
@@ -154,6 +157,19 @@ export class LiveHub {
       this.dropFeedIfUnwatched(sweepId);
       return;
     }
+    await this.inOrder(sweepId, () => this.subscribe(client, sweepId));
+  }
+
+  /** Runs the step after the sweep's earlier subscriptions and events have been handled. */
+  private async inOrder(sweepId: string, step: () => Promise<void>): Promise<void> {
+    const previous = this.eventChains.get(sweepId) ?? Promise.resolve();
+    const next = previous.then(step).catch((err: unknown) => this.logger.warn({ err, sweepId }, 'live view step failed'));
+    this.eventChains.set(sweepId, next);
+    await next;
+    if (this.eventChains.get(sweepId) === next) this.eventChains.delete(sweepId);
+  }
+
+  private async subscribe(client: LiveClient, sweepId: string): Promise<void> {
     const em = this.orm.em.fork();
     const valid = /^[0-9a-f-]{36}$/i.test(sweepId);
     const sweep = valid ? await loadSweepForView(em, { id: sweepId, ...teamScope(client.user) }) : null;
@@ -251,23 +267,26 @@ export class LiveHub {
       this.logger.warn({ payload }, 'unreadable sweep event ignored');
       return;
     }
-    const feed = this.feeds.get(event.sweepId);
-    if (!feed || feed.teamId !== event.teamId) return;
     if (event.kind === 'progress') {
-      if (feed.noteProgress(event.shardId, { evaluated: event.evaluated, rejected: event.rejected })) this.scheduleProgress(feed);
+      const feed = this.feeds.get(event.sweepId);
+      if (!feed || feed.teamId !== event.teamId) return;
+      if (feed.noteProgress(event.shardId, { evaluated: event.evaluated, rejected: event.rejected, seconds: event.elapsed })) this.scheduleProgress(feed);
       return;
     }
-    const previous = this.eventChains.get(event.sweepId) ?? Promise.resolve();
-    const next = previous.then(() => this.forward(feed, event));
-    this.eventChains.set(event.sweepId, next);
-    await next;
-    if (this.eventChains.get(event.sweepId) === next) this.eventChains.delete(event.sweepId);
+    // Watched, or a subscription is reading it right now (its feed comes when it has read the sweep).
+    if (!this.feeds.has(event.sweepId) && !this.eventChains.has(event.sweepId)) return;
+    await this.inOrder(event.sweepId, () => this.forward(event));
   }
 
-  private async forward(feed: SweepFeed, event: Exclude<SweepEvent, { kind: 'progress' }>): Promise<void> {
+  private async forward(event: Exclude<SweepEvent, { kind: 'progress' }>): Promise<void> {
+    const feed = this.feeds.get(event.sweepId);
+    if (!feed || feed.teamId !== event.teamId) return;
     try {
       const em = this.orm.em.fork();
       switch (event.kind) {
+        case 'planned':
+          for (const message of await feed.shardsPlanned(em)) this.broadcast(feed, message);
+          return;
         case 'shard':
           for (const message of await feed.shardChanged(em, event.shardId)) this.broadcast(feed, message);
           this.scheduleProgress(feed);
