@@ -30,6 +30,11 @@ export const liveProgressSchema = z.object({
   etaSeconds: z.number().nullable(),
   /** Seconds since the sweep started running. */
   elapsedSeconds: z.number(),
+  /** Shards merged complete, and shards planned (0 until the prepare step has planned them). */
+  shardsDone: z.number().int(),
+  shardCount: z.number().int(),
+  /** CPU seconds so far: the merged shards' charges plus the running shards' time. */
+  cpuSeconds: z.number(),
   at: z.string(),
 });
 export type LiveProgress = z.infer<typeof liveProgressSchema>;
@@ -38,7 +43,7 @@ export const liveServerMessageSchema = z.discriminatedUnion('type', [
   /** First message after subscribe: the sweep and its leaderboard as stored now. */
   z.object({ type: z.literal('state'), sweep: sweepDetailSchema, leaderboard: sweepLeaderboardSchema }),
   liveProgressSchema,
-  /** Shards whose state or counts changed. */
+  /** Shards whose state or counts changed; right after the prepare step has planned them, every shard. */
   z.object({ type: z.literal('shards'), sweepId: z.string(), shards: z.array(shardSummarySchema) }),
   /** The leaderboard after a shard merged into it (or after the finish step). */
   z.object({ type: z.literal('leaderboard'), sweepId: z.string(), leaderboard: sweepLeaderboardSchema }),

@@ -14,7 +14,7 @@ const is =
 
 describe('live view: sweep progress over WebSockets (/ws)', () => {
   let app: TestApp;
-  let worker: TestWorker;
+  let worker: TestWorker | undefined;
   let mine: TeamWithUsers;
   let theirs: TeamWithUsers;
   const clients: LiveTestClient[] = [];
@@ -23,8 +23,11 @@ describe('live view: sweep progress over WebSockets (/ws)', () => {
     app = await startTestApp({ allowanceDefaults: generousAllowance });
     mine = await createTeamWithUsers(app.orm, 'Live lab');
     theirs = await createTeamWithUsers(app.orm, 'Rival lab');
-    worker = await startTestWorker({ threads: 2, shardSubsets: 25_000_000 });
   });
+  /** The worker starts only when a test has subscribed, so that test sees the sweep before it is prepared. */
+  const startWorker = async () => {
+    worker ??= await startTestWorker({ threads: 2, shardSubsets: 25_000_000 });
+  };
   after(async () => {
     for (const client of clients) client.close();
     await worker?.stop();
@@ -54,8 +57,22 @@ describe('live view: sweep progress over WebSockets (/ws)', () => {
     const first = await watcher.waitFor('the state snapshot', is('state'));
     expect(first.sweep.id).to.equal(sweep.id);
     expect(watcher.received[0]!.message.type).to.equal('state');
+    expect(first.sweep).to.deep.include({ state: 'queued', shardCount: 0, shards: [] });
     const refusal = await stranger.waitFor('a refusal', is('error'));
     expect(refusal).to.include({ code: 'not_found', sweepId: sweep.id });
+
+    // Once the prepare step has planned the shards, all of them arrive in one message, before the sweep runs.
+    await startWorker();
+    const running = await watcher.waitFor('the sweep running', (m) => m.type === 'sweep' && m.sweep.state === 'running');
+    expect(running.type === 'sweep' && running.sweep.shardCount).to.be.above(1);
+    const shardCount = running.type === 'sweep' ? running.sweep.shardCount : 0;
+    const firstShards = watcher.received.find((r) => r.message.type === 'shards')!;
+    const runningAt = watcher.received.find((r) => r.message === running)!;
+    expect(watcher.received.indexOf(firstShards)).to.be.below(watcher.received.indexOf(runningAt));
+    const planned = (firstShards.message as Of<'shards'>).shards;
+    expect(planned.map((s) => s.index)).to.deep.equal([...Array(shardCount).keys()]);
+    expect(planned.every((s) => s.state === 'queued' && s.subsets > 0)).to.equal(true);
+    expect(planned.reduce((sum, s) => sum + s.subsets, 0)).to.equal(sweep.totalSubsets);
 
     // A late subscriber, once some shards have merged, first receives the sweep as stored now.
     await watcher.waitFor('a merged shard', (m) => m.type === 'leaderboard' && m.leaderboard.evaluated > 0, 120_000);
@@ -89,6 +106,14 @@ describe('live view: sweep progress over WebSockets (/ws)', () => {
     expect(progress.some((r) => r.message.etaSeconds !== null)).to.equal(true);
     const final = messages.filter((r) => r.message.type === 'progress').at(-1)!.message as LiveProgress;
     expect(final.evaluated + final.rejected).to.equal(ended.sweep.totalSubsets);
+    // Shard and CPU counters travel with the progress: shards done climb to all of them, CPU seconds grow from
+    // the running shards' time to the merged charges.
+    expect(progress.every((r) => r.message.shardCount === ended.sweep.shardCount)).to.equal(true);
+    const done = progress.map((r) => r.message.shardsDone);
+    expect(done.every((value, i) => i === 0 || value >= done[i - 1]!)).to.equal(true);
+    expect(final).to.include({ shardsDone: ended.sweep.shardCount, shardCount: ended.sweep.shardCount });
+    expect(progress.some((r) => r.message.cpuSeconds > 0 && r.message.shardsDone < ended.sweep.shardCount)).to.equal(true);
+    expect(final.cpuSeconds).to.be.closeTo(ended.sweep.cpuSeconds, 1e-9);
 
     // Shard states arrive as they change: each shard seen running and done.
     const shardMessages = messages.flatMap((r) => (r.message.type === 'shards' ? r.message.shards : []));
@@ -112,6 +137,7 @@ describe('live view: sweep progress over WebSockets (/ws)', () => {
   it('lets an admin of another team watch any sweep', async () => {
     const analyst = await signIn(app.baseUrl, mine.analyst.email, mine.password);
     const project = await setUpCartPoleProject(analyst, 'Admin watched');
+    await startWorker();
     const sweep = await launchSweep(analyst, project.projectId, project.launch(4, 'Small'));
     const admin = await openLiveClient(app.baseUrl, await signIn(app.baseUrl, theirs.admin.email, theirs.password));
     clients.push(admin);

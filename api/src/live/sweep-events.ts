@@ -20,6 +20,8 @@ export const sweepEventSchema = z.discriminatedUnion('kind', [
     rejected: z.number(),
     elapsed: z.number(),
   }),
+  /** The prepare step planned the sweep's shards (sent before the sweep's change to running). */
+  z.object({ kind: z.literal('planned'), sweepId: z.string(), teamId: z.string() }),
   /** A shard changed state (started, done, cancelled, failed). */
   z.object({ kind: z.literal('shard'), sweepId: z.string(), teamId: z.string(), shardId: z.string() }),
   /** A shard merged into the leaderboard, or the finish step stored the result. */

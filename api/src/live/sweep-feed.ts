@@ -11,16 +11,19 @@ const rateWindowMs = 5000;
 interface RunningShard {
   evaluated: number;
   rejected: number;
+  /** Seconds the shard has run on its thread so far. */
+  seconds: number;
 }
 
 /**
- * The live state of one watched sweep: the merged counts from the database plus the counters running shards
- * published, and the recent rate. Turns worker events into client messages; reads the database for anything
+ * The live state of one watched sweep: the merged counts (subsets, shards, CPU seconds) from the database plus
+ * the counters running shards published, and the recent rate. Turns worker events into client messages; reads the database for anything
  * beyond counters, so what it sends is what a fresh GET would show.
  */
 export class SweepFeed {
   private state: SweepState = 'queued';
-  private merged = { evaluated: 0, rejected: 0 };
+  private merged = { evaluated: 0, rejected: 0, cpuSeconds: 0 };
+  private shards = { done: 0, count: 0 };
   private totalSubsets = 0;
   private startedAt: Date | null = null;
   private readonly running = new Map<string, RunningShard>();
@@ -41,7 +44,8 @@ export class SweepFeed {
   /** Takes the sweep's stored counts and state as the new base. */
   rebase(sweep: Sweep): void {
     this.state = sweep.state;
-    this.merged = { evaluated: sweep.evaluated, rejected: sweep.rejected };
+    this.merged = { evaluated: sweep.evaluated, rejected: sweep.rejected, cpuSeconds: sweep.cpuSeconds };
+    this.shards = { done: sweep.shardsDone, count: sweep.shardCount };
     this.totalSubsets = sweep.totalSubsets;
     this.startedAt = sweep.startedAt ?? null;
     if (endedSweepStates.includes(sweep.state)) this.running.clear();
@@ -57,9 +61,11 @@ export class SweepFeed {
   progress(now = Date.now()): LiveProgress {
     let evaluated = this.merged.evaluated;
     let rejected = this.merged.rejected;
+    let cpuSeconds = this.merged.cpuSeconds;
     for (const shard of this.running.values()) {
       evaluated += shard.evaluated;
       rejected += shard.rejected;
+      cpuSeconds += shard.seconds;
     }
     const covered = evaluated + rejected;
     this.samples.push({ at: now, covered });
@@ -80,8 +86,20 @@ export class SweepFeed {
       subsetsPerSecond: rate,
       etaSeconds: rate && rate > 0 ? remaining / rate : remaining === 0 ? 0 : null,
       elapsedSeconds: this.startedAt ? Math.max(0, (now - this.startedAt.getTime()) / 1000) : 0,
+      shardsDone: this.shards.done,
+      shardCount: this.shards.count,
+      cpuSeconds,
       at: new Date(now).toISOString(),
     };
+  }
+
+  /** After the prepare step: every planned shard, so a watcher has the whole shard map at once. */
+  async shardsPlanned(em: EntityManager): Promise<LiveServerMessage[]> {
+    const sweep = await loadSweepForView(em, { id: this.sweepId });
+    if (!sweep) return [];
+    this.rebase(sweep);
+    const shards = await em.find(Shard, { sweep: this.sweepId }, { orderBy: { index: 'asc' }, refresh: true });
+    return [{ type: 'shards', sweepId: this.sweepId, shards: shards.map(toShardSummary) }];
   }
 
   /** After a shard changed state: its summary, and the base counts again (a merge changed them). */

@@ -59,6 +59,8 @@ export async function runPrepareJob(ctx: JobContext, job: PrepareJob): Promise<v
         expireInSeconds: ctx.config.shardExpireSeconds,
       });
     }
+    // Delivered at commit, in this order: every planned shard, then the change to running.
+    await notifySweepEvent(tx, { kind: 'planned', sweepId: locked.id, teamId: locked.team.id });
     await notifySweepEvent(tx, { kind: 'state', sweepId: locked.id, teamId: locked.team.id, state: 'running' });
   });
   ctx.logger.info({ sweepId: job.sweepId, shards: shards.length, subsets: prepared.total, candidates: prepared.candidateCount }, 'sweep prepared');
