@@ -26,6 +26,17 @@ describe('applyMessage', () => {
     expect(live.sweep?.shards).toHaveLength(2);
   });
 
+  it('takes every planned shard from one message, and the shard and CPU counters from progress', () => {
+    const queued = { id: 'sw', state: 'queued', shards: [], shardsDone: 0, shardCount: 0, cpuSeconds: 0 } as unknown as SweepDetail;
+    let live = applyMessage(empty, { type: 'state', sweep: queued, leaderboard: board(0) } as LiveServerMessage);
+    live = applyMessage(live, { type: 'shards', sweepId: 'sw', shards: [shard(1, 'queued'), shard(0, 'queued'), shard(2, 'queued')] });
+    expect(live.sweep?.shards.map((s) => s.index)).toEqual([0, 1, 2]);
+
+    live = applyMessage(live, { type: 'progress', sweepId: 'sw', state: 'running', shardsDone: 1, shardCount: 3, cpuSeconds: 4.5 } as LiveServerMessage);
+    expect(live.sweep).toMatchObject({ shardsDone: 1, shardCount: 3, cpuSeconds: 4.5, state: 'queued' });
+    expect(live.progress?.shardsDone).toBe(1);
+  });
+
   it('keeps a refusal of the hub in words', () => {
     const live = applyMessage(empty, { type: 'error', sweepId: 'sw', code: 'not_found', message: 'That sweep does not exist.' });
     expect(live.problem).toBe('That sweep does not exist.');

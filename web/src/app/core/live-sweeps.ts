@@ -141,7 +141,14 @@ export function applyMessage(current: LiveSweep, message: LiveServerMessage): Li
       // After a reconnect the last progress stays on screen until the next one arrives.
       return { sweep: message.sweep, leaderboard: message.leaderboard, progress: current.progress, problem: null };
     case 'progress':
-      return { ...current, progress: message };
+      // The counters the sweep's summary shows move with the progress; its state moves with `sweep` and `ended`.
+      return {
+        ...current,
+        progress: message,
+        sweep: current.sweep
+          ? { ...current.sweep, shardsDone: message.shardsDone, shardCount: message.shardCount, cpuSeconds: message.cpuSeconds }
+          : null,
+      };
     case 'shards': {
       if (!current.sweep) return current;
       const changed = new Map(message.shards.map((shard) => [shard.id, shard]));

@@ -20,15 +20,7 @@ import { LeaderboardTable } from './leaderboard-table';
 import { ShardMap } from './shard-map';
 import { SweepModels } from './sweep-models';
 import { SweepProgress } from './sweep-progress';
-import { mergeShards } from './shard-merge';
 import { SweepsApi } from './sweeps-api';
-
-/** The sweep with these shards, its counters no lower than what the shards themselves report. */
-function withShards(sweep: SweepDetail, shards: SweepDetail['shards']): SweepDetail {
-  const done = shards.filter((s) => s.state === 'done').length;
-  const cpu = shards.reduce((sum, s) => sum + s.cpuSeconds, 0);
-  return { ...sweep, shards, shardsDone: Math.max(sweep.shardsDone, done), cpuSeconds: Math.max(sweep.cpuSeconds, cpu) };
-}
 
 /**
  * One sweep, live: progress, throughput and time left, the shards, the leaderboard as it changes, and the
@@ -77,10 +69,9 @@ export class SweepPage {
   protected readonly cancelling = signal(false);
 
   protected readonly sweep = computed(() => {
-    const live = this.live()?.sweep ?? null;
-    const fetched = this.fetched()?.sweep ?? null;
-    // Live messages carry only the shards that changed; the API's answer has them all.
-    const current = live && fetched ? withShards(live, mergeShards(fetched.shards, live.shards)) : (live ?? fetched);
+    // The live view is complete once its first message arrived (every shard, and all of them again once planned);
+    // the API's answer shows something until then.
+    const current = this.live()?.sweep ?? this.fetched()?.sweep ?? null;
     const cancelled = this.cancelled();
     return cancelled && current && !endedSweepStates.includes(current.state) ? cancelled : current;
   });
@@ -126,14 +117,6 @@ export class SweepPage {
       });
       this.watched.set(watch.live);
       onCleanup(() => watch.stop());
-    });
-    // Once a worker has planned the shards, fetch them all (live messages bring only the ones that change).
-    let lastFetch = 0;
-    effect(() => {
-      const sweep = this.sweep();
-      if (!sweep || sweep.shards.length >= sweep.shardCount || Date.now() - lastFetch < 3000) return;
-      lastFetch = Date.now();
-      untracked(() => void this.fetch(sweep.id));
     });
   }
 
