@@ -21,7 +21,7 @@ simulated trajectory, the error against the recording and the mass-matrix check.
   --threshold error in coordinate units after which the model counts as lost (default 0.05)
   --forces    how forces are read between samples (default cubic; hold for a digital
               controller's output)
-  --points    thin the printed trajectory to about this many samples (default every sample)
+  --points    thin the printed trajectory to at most this many samples (default every sample)
 
 Exit status: 0 on success, 2 when an input (description, model, recording, option) is invalid,
 1 on any other fault.
