@@ -11,6 +11,7 @@ import {
   type ModelDocument,
   type ModelProvenance,
 } from '../schemas/model-document.js';
+import { safeParsePlain } from '../schemas/plain-issue-message.js';
 import { describeSchemaIssues } from '../schemas/sweep-description.js';
 import { safetyCaution } from './safety-caution.js';
 
@@ -128,7 +129,7 @@ export function parseModelDocument(text: string, fileName: string): ModelDocumen
       `${fileName} is a model document of version ${header.version}; this version of Conserva reads version ${MODEL_FORMAT_VERSION}.`,
     );
   }
-  const parsed = modelDocumentSchema.safeParse(json);
+  const parsed = safeParsePlain(modelDocumentSchema, json);
   if (!parsed.success) {
     throw new DiscoveryInputError(`${fileName} is not a valid model document:\n${describeSchemaIssues(parsed.error)}`);
   }

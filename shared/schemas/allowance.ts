@@ -11,11 +11,23 @@ import * as z from 'zod';
 export const allowanceLimitsSchema = z
   .object({
     /** CPU seconds (busy seconds of one worker thread) the team may use per calendar month. */
-    cpuSecondsPerMonth: z.number().int().min(0).max(1e12),
+    cpuSecondsPerMonth: z
+      .number('Give the monthly CPU time as a number.')
+      .int('Give the monthly CPU time in whole seconds.')
+      .min(0, 'The monthly CPU time cannot be negative.')
+      .max(1e12, 'The monthly CPU time is limited to a million million seconds.'),
     /** Sweeps queued or running at the same time. */
-    sweepsAtOnce: z.number().int().min(0).max(1000),
+    sweepsAtOnce: z
+      .number('Give the sweeps at once as a number.')
+      .int('Sweeps at once are a whole number.')
+      .min(0, 'Sweeps at once cannot be negative.')
+      .max(1000, 'At most 1,000 sweeps at once.'),
     /** Subsets one sweep may evaluate. */
-    subsetsPerSweep: z.number().int().min(0).max(Number.MAX_SAFE_INTEGER),
+    subsetsPerSweep: z
+      .number('Give the subsets per sweep as a number.')
+      .int('Subsets per sweep are a whole number.')
+      .min(0, 'Subsets per sweep cannot be negative.')
+      .max(Number.MAX_SAFE_INTEGER, 'Subsets per sweep are limited to 9,007,199,254,740,991.'),
   })
   .strict();
 export type AllowanceLimits = z.infer<typeof allowanceLimitsSchema>;

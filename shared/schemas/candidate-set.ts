@@ -18,15 +18,15 @@ import { generatorSettingsSchema, referenceTermSchema } from './sweep-descriptio
  *   DELETE /api/candidate-sets/:id                            -> 204 (sweeps keep their frozen copy)
  */
 
-const termText = z.string().trim().min(1, 'A term cannot be empty.').max(500, 'A term is limited to 500 characters.');
+const termText = z.string('Write the term as text.').trim().min(1, 'A term cannot be empty.').max(500, 'A term is limited to 500 characters.');
 
 /** Body of POST (create) and PUT (replace) of a candidate set. */
 export const candidateSetInputSchema = z
   .object({
-    name: z.string().trim().min(1, 'Give the candidate set a name.').max(120),
-    coordinates: z.array(coordinateNameSchema).min(1, 'Name at least one coordinate.').max(8),
-    terms: z.array(termText).min(1, 'List at least one candidate term.').max(400),
-    known: z.array(termText).max(20).default([]),
+    name: z.string('Give the candidate set a name.').trim().min(1, 'Give the candidate set a name.').max(120, 'The name can have at most 120 characters.'),
+    coordinates: z.array(coordinateNameSchema).min(1, 'Name at least one coordinate.').max(8, 'At most 8 coordinates.'),
+    terms: z.array(termText).min(1, 'List at least one candidate term.').max(400, 'At most 400 candidate terms.'),
+    known: z.array(termText).max(20, 'At most 20 known terms.').default([]),
     reference: referenceTermSchema.nullable().default(null),
     /** The generator options the terms were made with, kept so the editor can show and re-run them. */
     generator: generatorSettingsSchema.nullable().default(null),
@@ -37,7 +37,7 @@ export type CandidateSetInputRaw = z.input<typeof candidateSetInputSchema>;
 
 /** Body of the check route: a candidate set as being edited (the name may still be missing). */
 export const candidateSetCheckInputSchema = candidateSetInputSchema.extend({
-  name: z.string().trim().max(120).optional(),
+  name: z.string().trim().max(120, 'The name can have at most 120 characters.').optional(),
 });
 export type CandidateSetCheckInput = z.infer<typeof candidateSetCheckInputSchema>;
 
@@ -76,7 +76,7 @@ export type TermCheck = z.infer<typeof termCheckSchema>;
 /** Body of the generate route. */
 export const termGenerateInputSchema = z
   .object({
-    coordinates: z.array(coordinateNameSchema).min(1).max(8),
+    coordinates: z.array(coordinateNameSchema).min(1, 'Name at least one coordinate.').max(8, 'At most 8 coordinates.'),
     generator: generatorSettingsSchema,
   })
   .strict();

@@ -2,8 +2,8 @@ import * as z from 'zod';
 
 /** Body of POST /api/projects and PATCH /api/projects/:id. */
 export const projectInputSchema = z.object({
-  name: z.string().trim().min(1, 'Give the project a name.').max(120),
-  description: z.string().trim().max(2000).default(''),
+  name: z.string('Give the project a name.').trim().min(1, 'Give the project a name.').max(120, 'The name can have at most 120 characters.'),
+  description: z.string('Write the description as text.').trim().max(2000, 'The description can have at most 2,000 characters.').default(''),
 });
 export type ProjectInput = z.infer<typeof projectInputSchema>;
 

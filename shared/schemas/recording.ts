@@ -15,14 +15,14 @@ import * as z from 'zod';
 
 /** A coordinate's name as it appears in terms: a letter, then letters, digits or _ (`x`, `theta1`). */
 export const coordinateNameSchema = z
-  .string()
+  .string('Give the coordinate a name.')
   .trim()
   .regex(/^[A-Za-z][A-Za-z0-9_]*$/, 'A coordinate name starts with a letter and has only letters, digits and _.')
-  .max(40);
+  .max(40, 'A coordinate name has at most 40 characters.');
 
-const columnName = z.string().trim().min(1, 'Choose a column.').max(200);
+const columnName = z.string('Choose a column.').trim().min(1, 'Choose a column.').max(200, 'A column name has at most 200 characters.');
 /** Free text for people (`m`, `rad`, `N`, `N*m`); values are used as recorded, never converted. */
-const unitText = z.string().trim().max(40).default('');
+const unitText = z.string('Write the unit as text.').trim().max(40, 'A unit has at most 40 characters.').default('');
 
 /** A mapped column and its unit. */
 export const mappedColumnSchema = z.object({ column: columnName, unit: unitText }).strict();
@@ -45,8 +45,8 @@ export type CoordinateMapping = z.infer<typeof coordinateMappingSchema>;
 /** Which CSV columns hold time, positions, velocities and forces, with units. */
 export const recordingMappingSchema = z
   .object({
-    time: z.object({ column: columnName, unit: z.string().trim().max(40).default('s') }).strict(),
-    coordinates: z.array(coordinateMappingSchema).min(1, 'Map at least one coordinate.').max(8),
+    time: z.object({ column: columnName, unit: unitText.default('s') }).strict(),
+    coordinates: z.array(coordinateMappingSchema).min(1, 'Map at least one coordinate.').max(8, 'At most 8 coordinates.'),
   })
   .strict()
   .superRefine((mapping, ctx) => {
@@ -76,7 +76,7 @@ export type RecordingMappingInput = z.input<typeof recordingMappingSchema>;
 /** The non-file fields of the upload (mapping arrives as JSON text in the multipart field `mapping`). */
 export const recordingUploadFieldsSchema = z
   .object({
-    name: z.string().trim().min(1).max(120).optional(),
+    name: z.string().trim().min(1, 'Give the recording a name.').max(120, 'The name can have at most 120 characters.').optional(),
     mapping: recordingMappingSchema,
   })
   .strict();
@@ -160,7 +160,12 @@ export type RecordingList = z.infer<typeof recordingListSchema>;
 
 /** Query of GET /api/recordings/:id/samples: at most `points` samples per channel (default 2000). */
 export const recordingSamplesQuerySchema = z.object({
-  points: z.coerce.number().int().min(10).max(20000).default(2000),
+  points: z.coerce
+    .number('Ask for a whole number of points from 10 to 20,000.')
+    .int('Ask for a whole number of points from 10 to 20,000.')
+    .min(10, 'Ask for a whole number of points from 10 to 20,000.')
+    .max(20000, 'Ask for a whole number of points from 10 to 20,000.')
+    .default(2000),
 });
 
 /**

@@ -1,13 +1,13 @@
 import * as z from 'zod';
 
 export const roles = ['admin', 'analyst', 'viewer'] as const;
-export const roleSchema = z.enum(roles);
+export const roleSchema = z.enum(roles, 'Choose the role admin, analyst or viewer.');
 export type Role = z.infer<typeof roleSchema>;
 
 /** Body of POST /api/session (sign-in). */
 export const signInSchema = z.object({
-  email: z.email('Enter a valid e-mail address.').max(254),
-  password: z.string().min(1, 'Enter your password.').max(200),
+  email: z.email('Enter a valid e-mail address.').max(254, 'An e-mail address has at most 254 characters.'),
+  password: z.string('Enter your password.').min(1, 'Enter your password.').max(200, 'A password has at most 200 characters.'),
 });
 export type SignIn = z.infer<typeof signInSchema>;
 

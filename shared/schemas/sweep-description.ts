@@ -10,22 +10,27 @@ import * as z from 'zod';
  * at fault.
  */
 
-const expressionText = z.string().trim().min(1, 'A term cannot be empty.').max(500, 'A term is limited to 500 characters.');
+const expressionText = z.string('Write the term as text.').trim().min(1, 'A term cannot be empty.').max(500, 'A term is limited to 500 characters.');
+
+/** A whole number in [min, max], with one plain sentence for every way it can be wrong. */
+export function wholeNumber(min: number, max: number, sentence: string) {
+  return z.number(sentence).int(sentence).min(min, sentence).max(max, sentence);
+}
 
 /** Options of the candidate generator (shared/math/term-generator.ts documents the families and counts). */
 export const generatorSettingsSchema = z
   .object({
-    polynomialDegree: z.number().int().min(0).max(4).optional(),
-    angles: z.array(z.string()).optional(),
-    trigonometric: z.boolean().optional(),
-    differences: z.boolean().optional(),
-    velocityDegree: z.number().int().min(2).max(4).optional(),
-    kineticFactors: z.boolean().optional(),
-    kineticPolynomialDegree: z.number().int().min(0).max(3).optional(),
+    polynomialDegree: wholeNumber(0, 4, 'The polynomial degree is a whole number from 0 to 4.').optional(),
+    angles: z.array(z.string(), 'List the coordinates that are angles.').optional(),
+    trigonometric: z.boolean('Sines and cosines are switched on (true) or off (false).').optional(),
+    differences: z.boolean('Angle differences are switched on (true) or off (false).').optional(),
+    velocityDegree: wholeNumber(2, 4, 'The velocity degree is a whole number from 2 to 4.').optional(),
+    kineticFactors: z.boolean('Factors of the kinetic terms are switched on (true) or off (false).').optional(),
+    kineticPolynomialDegree: wholeNumber(0, 3, 'The polynomial degree of kinetic factors is a whole number from 0 to 3.').optional(),
     /** Terms added to the generated ones. */
-    add: z.array(expressionText).default([]),
+    add: z.array(expressionText, 'List the terms to add.').default([]),
     /** Generated terms to leave out (compared by their canonical spelling). */
-    remove: z.array(expressionText).default([]),
+    remove: z.array(expressionText, 'List the terms to leave out.').default([]),
   })
   .strict();
 export type GeneratorSettings = z.infer<typeof generatorSettingsSchema>;
@@ -34,22 +39,24 @@ export type GeneratorSettings = z.infer<typeof generatorSettingsSchema>;
 export const defaultDerivativeSettings = { method: 'savitzky-golay', window: 9, order: 4 } as const;
 
 /** How velocities and accelerations are estimated from positions, per recording. */
-export const derivativeSettingsSchema = z.discriminatedUnion('method', [
-  z.object({ method: z.literal('central') }).strict(),
-  z
-    .object({
-      method: z.literal('savitzky-golay'),
-      window: z
-        .number()
-        .int()
-        .min(3)
-        .max(201)
-        .refine((w) => w % 2 === 1, 'The Savitzky-Golay window must be an odd number of samples.'),
-      order: z.number().int().min(2).max(10),
-    })
-    .strict()
-    .refine((s) => s.order <= s.window - 2, { message: 'The Savitzky-Golay window must be at least two samples longer than its order (for example window 9 with order 4).', path: ['order'] }),
-]);
+export const derivativeSettingsSchema = z.discriminatedUnion(
+  'method',
+  [
+    z.object({ method: z.literal('central') }).strict(),
+    z
+      .object({
+        method: z.literal('savitzky-golay'),
+        window: wholeNumber(3, 201, 'The Savitzky-Golay window is a whole number of samples from 3 to 201.').refine(
+          (w) => w % 2 === 1,
+          'The Savitzky-Golay window must be an odd number of samples.',
+        ),
+        order: wholeNumber(2, 10, 'The Savitzky-Golay order is a whole number from 2 to 10.'),
+      })
+      .strict()
+      .refine((s) => s.order <= s.window - 2, { message: 'The Savitzky-Golay window must be at least two samples longer than its order (for example window 9 with order 4).', path: ['order'] }),
+  ],
+  { error: 'Choose the derivative method "savitzky-golay" (with a window and an order) or "central".' },
+);
 export type DerivativeSettings = z.infer<typeof derivativeSettingsSchema>;
 
 export const defaultBalanceSettings = { window: 20, stride: 5, integration: 'simpson' } as const;
@@ -57,9 +64,9 @@ export const defaultBalanceSettings = { window: 20, stride: 5, integration: 'sim
 /** Windows of the balance form, counted in sample intervals; the power is integrated within each window. */
 export const balanceSettingsSchema = z
   .object({
-    window: z.number().int().min(2).max(100000).default(defaultBalanceSettings.window),
-    stride: z.number().int().min(1).max(100000).default(defaultBalanceSettings.stride),
-    integration: z.enum(['trapezoid', 'simpson']).default(defaultBalanceSettings.integration),
+    window: wholeNumber(2, 100_000, 'A balance window spans a whole number of sample intervals from 2 to 100,000.').default(defaultBalanceSettings.window),
+    stride: wholeNumber(1, 100_000, 'The balance stride is a whole number of samples from 1 to 100,000.').default(defaultBalanceSettings.stride),
+    integration: z.enum(['trapezoid', 'simpson'], 'The power is integrated by "simpson" or "trapezoid".').default(defaultBalanceSettings.integration),
   })
   .strict();
 export type BalanceSettings = z.infer<typeof balanceSettingsSchema>;
@@ -68,7 +75,7 @@ export const referenceTermSchema = z
   .object({
     term: expressionText,
     coefficient: z
-      .number()
+      .number('Give the reference coefficient as a number.')
       .refine((c) => Number.isFinite(c) && c !== 0, 'The reference coefficient must be a finite number other than 0.'),
   })
   .strict();
@@ -76,28 +83,40 @@ export type ReferenceTerm = z.infer<typeof referenceTermSchema>;
 
 const sizeRangeSchema = z
   .object({
-    min: z.number().int().min(0).max(12).default(0),
-    max: z.number().int().min(0).max(12),
+    min: z
+      .number('Give the smallest size as a whole number of extra terms.')
+      .int('The smallest size is a whole number of extra terms.')
+      .min(0, 'The smallest size cannot be below 0.')
+      .max(12, 'At most 12 extra terms per model.')
+      .default(0),
+    max: z
+      .number('Give the largest size as a whole number of extra terms.')
+      .int('The largest size is a whole number of extra terms.')
+      .min(0, 'The largest size cannot be below 0.')
+      .max(12, 'At most 12 extra terms per model.'),
   })
   .strict()
-  .refine((s) => s.min <= s.max, { message: 'sizes.min must not exceed sizes.max.', path: ['min'] });
+  .refine((s) => s.min <= s.max, { message: 'The smallest size cannot exceed the largest.', path: ['min'] });
 
 const sweepSettingsShape = {
   /** Names of the generalized coordinates; velocities are `d<name>`, accelerations `dd<name>`. */
-  coordinates: z.array(z.string().trim().min(1)).min(1, 'Name at least one coordinate.').max(8),
+  coordinates: z
+    .array(z.string().trim().min(1, 'A coordinate name cannot be empty.'))
+    .min(1, 'Name at least one coordinate.')
+    .max(8, 'At most 8 coordinates.'),
   /** The candidate set as expressions; give this or `generate`. */
-  terms: z.array(expressionText).min(1).max(400).optional(),
+  terms: z.array(expressionText).min(1, 'List at least one candidate term.').max(400, 'At most 400 candidate terms.').optional(),
   /** Generator options; give this or `terms`. */
   generate: generatorSettingsSchema.optional(),
   /** Terms in every model. */
-  known: z.array(expressionText).max(20).default([]),
+  known: z.array(expressionText).max(20, 'At most 20 known terms.').default([]),
   /** Extra terms beyond the known ones in the models the sweep tries. */
   sizes: sizeRangeSchema,
-  form: z.enum(['derivative', 'balance']).default('balance'),
+  form: z.enum(['derivative', 'balance'], 'The form is "balance" or "derivative".').default('balance'),
   /** Term with a fixed coefficient; required when the recordings carry no forces. */
   reference: referenceTermSchema.optional(),
   /** Leaderboard length. */
-  top: z.number().int().min(1).max(100).default(10),
+  top: wholeNumber(1, 100, 'The leaderboard keeps a whole number of models from 1 to 100.').default(10),
   derivatives: derivativeSettingsSchema.default(defaultDerivativeSettings),
   balance: balanceSettingsSchema.default(defaultBalanceSettings),
 };
@@ -120,10 +139,10 @@ export type SweepSettingsInput = z.input<typeof sweepSettingsSchema>;
  */
 export const columnMappingSchema = z
   .object({
-    time: z.string().min(1),
-    forces: z.record(z.string(), z.string().min(1)).optional(),
+    time: z.string('Name the time column.').min(1, 'Name the time column.'),
+    forces: z.record(z.string(), z.string('Name the force column.').min(1, 'Name the force column.')).optional(),
   })
-  .catchall(z.string().min(1));
+  .catchall(z.string('Name a column.').min(1, 'Name a column.'));
 /** The mapping as code builds it (zod's inferred type cannot express `forces` beside the string columns). */
 export interface ColumnMapping {
   time: string;
@@ -131,7 +150,7 @@ export interface ColumnMapping {
   [key: string]: string | Record<string, string> | undefined;
 }
 
-export const recordingRoleSchema = z.enum(['train', 'validate']);
+export const recordingRoleSchema = z.enum(['train', 'validate'], 'The role is "train" or "validate".');
 export type RecordingRole = z.infer<typeof recordingRoleSchema>;
 
 export const recordingReferenceSchema = z

@@ -43,10 +43,16 @@ export type SweepRunSettingsInput = z.input<typeof sweepRunSettingsSchema>;
 /** Body of the launch and of the estimate. Recordings must belong to the same project and map every coordinate. */
 export const sweepLaunchSchema = z
   .object({
-    name: z.string().trim().max(120).optional(),
+    name: z.string('Write the name as text.').trim().max(120, 'The name can have at most 120 characters.').optional(),
     candidateSetId: z.uuid('Choose a candidate set.'),
-    trainingRecordingIds: z.array(z.uuid()).min(1, 'Choose at least one training recording.').max(50),
-    validationRecordingIds: z.array(z.uuid()).max(50).default([]),
+    trainingRecordingIds: z
+      .array(z.uuid('Choose the recording from the list.'), 'Choose the training recordings.')
+      .min(1, 'Choose at least one training recording.')
+      .max(50, 'At most 50 training recordings.'),
+    validationRecordingIds: z
+      .array(z.uuid('Choose the recording from the list.'), 'Choose the validation recordings.')
+      .max(50, 'At most 50 validation recordings.')
+      .default([]),
     settings: sweepRunSettingsSchema,
   })
   .strict()

@@ -2,7 +2,7 @@ import * as z from 'zod';
 
 /** Body of POST /api/admin/teams and PATCH /api/admin/teams/:id. */
 export const teamInputSchema = z.object({
-  name: z.string().trim().min(1, 'Give the team a name.').max(120, 'Keep the name under 120 characters.'),
+  name: z.string('Give the team a name.').trim().min(1, 'Give the team a name.').max(120, 'The name can have at most 120 characters.'),
 });
 export type TeamInput = z.infer<typeof teamInputSchema>;
 

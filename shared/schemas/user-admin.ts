@@ -3,14 +3,14 @@ import { roleSchema } from './session.js';
 
 /** A new password: long enough to resist guessing, short enough to hash quickly. */
 export const newPasswordSchema = z
-  .string()
+  .string('Enter a password.')
   .min(12, 'Use at least 12 characters.')
-  .max(200, 'Keep the password under 200 characters.');
+  .max(200, 'The password can have at most 200 characters.');
 
 /** Body of POST /api/admin/users. */
 export const userCreateSchema = z.object({
-  email: z.email('Enter a valid e-mail address.').max(254),
-  name: z.string().trim().min(1, 'Enter a name.').max(120),
+  email: z.email('Enter a valid e-mail address.').max(254, 'An e-mail address has at most 254 characters.'),
+  name: z.string('Enter a name.').trim().min(1, 'Enter a name.').max(120, 'The name can have at most 120 characters.'),
   password: newPasswordSchema,
   role: roleSchema,
   teamId: z.uuid('Choose a team.'),
@@ -20,7 +20,7 @@ export type UserCreate = z.infer<typeof userCreateSchema>;
 /** Body of PATCH /api/admin/users/:id: any subset of these fields. */
 export const userUpdateSchema = z
   .object({
-    name: z.string().trim().min(1, 'Enter a name.').max(120),
+    name: z.string('Enter a name.').trim().min(1, 'Enter a name.').max(120, 'The name can have at most 120 characters.'),
     role: roleSchema,
     teamId: z.uuid('Choose a team.'),
     password: newPasswordSchema,

@@ -1,5 +1,6 @@
 import type { Request } from 'express';
 import type { z } from 'zod';
+import { safeParsePlain } from '../../../shared/schemas/plain-issue-message.js';
 import { HttpError } from './http-error.js';
 
 /** Validates a request body against a shared schema; on failure answers 400 with a message per field. */
@@ -7,9 +8,9 @@ export function parseBody<S extends z.ZodType>(schema: S, req: Request): z.outpu
   return parseInput(schema, req.body ?? {});
 }
 
-/** Validates any client input (a parsed form field, a query) like a body: 400 with a message per field. */
+/** Validates any client input (a parsed form field, a query) like a body: 400 with a plain sentence per field. */
 export function parseInput<S extends z.ZodType>(schema: S, input: unknown): z.output<S> {
-  const result = schema.safeParse(input);
+  const result = safeParsePlain(schema, input);
   if (result.success) return result.data;
   const fields: Record<string, string> = {};
   for (const issue of result.error.issues) {

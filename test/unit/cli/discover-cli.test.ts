@@ -89,12 +89,22 @@ describe('conserva discover (command line)', function () {
       {
         title: 'an invalid field value, naming the field',
         prepare: (f) => writeCase(f, (d) => (d['form'] = 'integral')),
-        fragments: ['form:'],
+        fragments: ['form: The form is "balance" or "derivative".'],
+      },
+      {
+        title: 'a size beyond the limit, in a plain sentence',
+        prepare: (f) => writeCase(f, (d) => (d['sizes'] = { min: 0, max: 13 })),
+        fragments: ['is not a valid sweep description', 'sizes.max: At most 12 extra terms per model.'],
+      },
+      {
+        title: 'a misspelt field, naming it',
+        prepare: (f) => writeCase(f, (d) => (d['szes'] = { max: 2 })),
+        fragments: ['"szes" is not a field here: check its spelling, or leave it out.'],
       },
       {
         title: 'a missing field, naming it',
         prepare: (f) => writeCase(f, (d) => delete d['sizes']),
-        fragments: ['sizes:'],
+        fragments: ['sizes: This field is required.'],
       },
       { title: 'a missing description file', prepare: (f) => path.join(f, 'nowhere.json'), fragments: ['no such file'] },
       {

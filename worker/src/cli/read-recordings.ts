@@ -3,6 +3,7 @@ import path from 'node:path';
 import { recordingFromCsv } from '../../../shared/math/csv-recording.js';
 import { DiscoveryInputError } from '../../../shared/math/discovery-input-error.js';
 import type { Recording } from '../../../shared/math/recording.js';
+import { safeParsePlain } from '../../../shared/schemas/plain-issue-message.js';
 import {
   describeSchemaIssues,
   sweepDescriptionSchema,
@@ -18,7 +19,7 @@ export async function readDescription(file: string): Promise<SweepDescription> {
   } catch (error) {
     throw new DiscoveryInputError(`${file} is not valid JSON: ${(error as Error).message}`);
   }
-  const parsed = sweepDescriptionSchema.safeParse(json);
+  const parsed = safeParsePlain(sweepDescriptionSchema, json);
   if (!parsed.success) {
     throw new DiscoveryInputError(`${file} is not a valid sweep description:\n${describeSchemaIssues(parsed.error)}`);
   }

@@ -1,12 +1,13 @@
 import type { AbstractControl } from '@angular/forms';
 import type { z } from 'zod';
+import { safeParsePlain } from '../../../../shared/schemas/plain-issue-message';
 
 /**
  * The problems a shared schema finds in a value, keyed by dotted path (`coordinates.0.column`) exactly as the
  * server keys `fields` in its error answer, so one form can show both next to the same field.
  */
 export function schemaIssues(schema: z.ZodType, value: unknown): Record<string, string> {
-  const result = schema.safeParse(value);
+  const result = safeParsePlain(schema, value);
   if (result.success) return {};
   const issues: Record<string, string> = {};
   for (const issue of result.error.issues) {

@@ -1,5 +1,6 @@
 import type { AbstractControl, ValidationErrors, ValidatorFn } from '@angular/forms';
 import type { z } from 'zod';
+import { safeParsePlain } from '../../../../shared/schemas/plain-issue-message';
 
 /**
  * A form validator from a shared zod schema, so a field shows the same sentence the server would answer with.
@@ -7,7 +8,7 @@ import type { z } from 'zod';
  */
 export function zodValidator(schema: z.ZodType): ValidatorFn {
   return (control: AbstractControl): ValidationErrors | null => {
-    const result = schema.safeParse(control.value);
+    const result = safeParsePlain(schema, control.value);
     return result.success ? null : { schema: result.error.issues[0]?.message ?? 'Check this value.' };
   };
 }

@@ -15,6 +15,7 @@ import {
   type TermCheck,
   candidateSetInputSchema,
 } from '../../../../../shared/schemas/candidate-set';
+import { safeParsePlain } from '../../../../../shared/schemas/plain-issue-message';
 import { coordinateNameSchema, type RecordingView } from '../../../../../shared/schemas/recording';
 import { referenceTermSchema } from '../../../../../shared/schemas/sweep-description';
 import { toApiFailure } from '../../core/api-failure';
@@ -282,7 +283,7 @@ export class CandidateSetEditor {
     const name = event.value.trim();
     event.chipInput.clear();
     if (!name) return;
-    const parsed = coordinateNameSchema.safeParse(name);
+    const parsed = safeParsePlain(coordinateNameSchema, name);
     if (!parsed.success) {
       this.coordinateProblem.set(parsed.error.issues[0]?.message ?? 'Not a valid coordinate name.');
       return;
