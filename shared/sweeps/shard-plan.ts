@@ -2,6 +2,9 @@ import { countSubsetsBySize, partitionSlices, splitRankSpace } from '../math/com
 import type { SweepSlice } from '../math/sweep-problem.js';
 import { subsetsPerCpuSecond, type MeasuredThroughput } from './sweep-estimate.js';
 
+/** CPU seconds a shard is cut to take unless a worker is told otherwise (CONSERVA_SHARD_SECONDS). */
+export const DEFAULT_SHARD_SECONDS = 30;
+
 export interface ShardSizing {
   /** CPU seconds a shard should take (production: tens of seconds). */
   targetSeconds: number;

@@ -1,5 +1,6 @@
 import os from 'node:os';
 import { integerFrom, mailFromOf, publicUrlFrom, smtpUrlFrom } from '../../api/src/config.js';
+import { DEFAULT_SHARD_SECONDS } from '../../shared/sweeps/shard-plan.js';
 
 /** What the worker process reads from its environment (README, Configuration). */
 export interface WorkerConfig {
@@ -37,7 +38,7 @@ export function loadWorkerConfig(env: Record<string, string | undefined> = proce
   const databaseUrl = env.DATABASE_URL;
   if (!databaseUrl) throw new Error('DATABASE_URL is not set (npm start sets it for the private cluster).');
   const production = env.NODE_ENV === 'production';
-  const shardSeconds = numberFrom(env, 'CONSERVA_SHARD_SECONDS', 30, 0.01);
+  const shardSeconds = numberFrom(env, 'CONSERVA_SHARD_SECONDS', DEFAULT_SHARD_SECONDS, 0.01);
   const progressMs = integerFrom(env, 'CONSERVA_PROGRESS_MS', 500, 50);
   if (progressMs > 1000) throw new Error('CONSERVA_PROGRESS_MS must be at most 1000: the live view promises progress every second.');
   return {

@@ -8,6 +8,7 @@ import { Shard } from './shard.js';
 import { SubsetThroughput } from './subset-throughput.js';
 import { Sweep } from './sweep.js';
 import { SweepModel } from './sweep-model.js';
+import { SweepTiming } from './sweep-timing.js';
 import { Team } from './team.js';
 import { TeamAllowance } from './team-allowance.js';
 import { UsageCharge } from './usage-charge.js';
@@ -29,6 +30,7 @@ export const allEntities = [
   TeamAllowance,
   UsageCharge,
   SubsetThroughput,
+  SweepTiming,
   WorkerPresence,
   MailMessage,
 ];

@@ -2,7 +2,10 @@ import { defineEntity, type InferEntity } from '@mikro-orm/core';
 
 const p = defineEntity.properties;
 
-/** A worker process's heartbeat: who it is and how many threads it runs (for estimates and the admin view). */
+/**
+ * A worker process's heartbeat: who it is, how many threads it runs and how it cuts shards (for estimates and
+ * the admin view).
+ */
 export const WorkerPresence = defineEntity({
   name: 'WorkerPresence',
   properties: {
@@ -10,6 +13,10 @@ export const WorkerPresence = defineEntity({
     host: p.string().length(200),
     pid: p.integer(),
     threads: p.integer(),
+    /** CPU seconds a shard is cut to take (CONSERVA_SHARD_SECONDS). */
+    shardSeconds: p.double().$type<number>().default(30),
+    /** A fixed number of subsets per shard instead (CONSERVA_SHARD_SUBSETS), or null. */
+    shardSubsets: p.double().$type<number>().nullable(),
     startedAt: p.datetime(),
     lastSeenAt: p.datetime().index(),
   },

@@ -7,12 +7,13 @@ import type { FinishJob } from '../../../api/src/queue/sweep-jobs.js';
 import { endSweep } from '../../../api/src/sweeps/sweep-end.js';
 import { loadSignalRecordings } from '../../../api/src/recordings/signal-recordings.js';
 import { failSweep } from '../sweeps/sweep-failure.js';
+import { recordSweepTiming } from '../sweeps/sweep-timing-record.js';
 import type { JobContext } from './job-context.js';
 
 /**
  * Finish (design step 5): once every shard has merged, runs the command line's finish step on the merged
- * leaderboard (on the step thread), stores the result in the command line's shape and marks the sweep
- * finished. Only a running sweep with every shard merged is finished; anything else leaves the job with
+ * leaderboard (on the step thread), stores the result in the command line's shape, marks the sweep
+ * finished and records what it took beyond its subsets for later estimates. Only a running sweep with every shard merged is finished; anything else leaves the job with
  * nothing to do.
  */
 export async function runFinishJob(ctx: JobContext, job: FinishJob): Promise<void> {
@@ -40,6 +41,7 @@ export async function runFinishJob(ctx: JobContext, job: FinishJob): Promise<voi
     // Both events are delivered at commit, in this order: the result, then the end.
     await notifySweepEvent(tx, { kind: 'leaderboard', sweepId: locked.id, teamId: locked.team.id, version: locked.leaderboardVersion });
     await endSweep(tx, ctx.boss, locked, { state: 'finished' });
+    await recordSweepTiming(tx, locked, locked.endedAt!);
   });
   ctx.logger.info({ sweepId: job.sweepId, best: result.best?.energy ?? null }, 'sweep finished');
 }
