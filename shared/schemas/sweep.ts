@@ -71,6 +71,16 @@ export const sweepLaunchSchema = z
 export type SweepLaunch = z.infer<typeof sweepLaunchSchema>;
 export type SweepLaunchInput = z.input<typeof sweepLaunchSchema>;
 
+/** What an estimate's figures rest on, so people can tell a measurement from a default. */
+export const estimateBasisSchema = z.object({
+  source: z.enum(['measured', 'partly measured', 'default']),
+  /** Finished shards (speed) or finished sweeps (fixed costs) the measurement rests on; 0 for defaults. */
+  samples: z.number().int(),
+  /** In words, e.g. "measured on this installation over the last 14 shards" or "default until measured". */
+  text: z.string(),
+});
+export type EstimateBasis = z.infer<typeof estimateBasisSchema>;
+
 /** Expected work of one subset size. */
 export const sizeEstimateSchema = z.object({
   size: z.number().int(),
@@ -93,11 +103,21 @@ export const sweepEstimateSchema = z.object({
   sizes: z.object({ min: z.number().int(), max: z.number().int() }),
   perSize: z.array(sizeEstimateSchema),
   totalSubsets: z.number(),
+  /** CPU seconds the team is charged: its shards' time on worker threads, at the speed per size. */
   cpuSeconds: z.number(),
+  /** Shards the prepare step will cut, as the running workers cut them. */
+  shardCount: z.number().int(),
+  /** Wall seconds beyond the subsets: preparing, handling each shard, finishing. */
+  fixedCosts: z.object({ prepareSeconds: z.number(), shardOverheadSeconds: z.number(), finishSeconds: z.number() }),
   /** Threads of the workers that reported within the last 30 s. */
   workerThreads: z.number().int(),
-  /** cpuSeconds spread over those threads; null when no worker is running. */
+  /**
+   * Launch to finish on those threads: prepare, the shards (CPU seconds and handling) spread over the threads,
+   * finish; null when no worker is running.
+   */
   wallSeconds: z.number().nullable(),
+  /** What the speed (CPU seconds) and the fixed costs rest on. */
+  basis: z.object({ speed: estimateBasisSchema, fixedCosts: estimateBasisSchema }),
   allowance: allowanceStatusSchema,
   fits: z.boolean(),
   /** One entry per limit the launch would break, each message stating the limit and the estimate. */

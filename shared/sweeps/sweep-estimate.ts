@@ -1,6 +1,6 @@
 import { countSubsetsBySize } from '../math/combinations.js';
 import type { AllowanceLimits, AllowanceRefusal } from '../schemas/allowance.js';
-import type { SizeEstimate } from '../schemas/sweep.js';
+import type { EstimateBasis, SizeEstimate } from '../schemas/sweep.js';
 
 /**
  * Built-in speed until finished shards have been measured: the kernel's inner step costs about size + 2
@@ -14,8 +14,8 @@ export function defaultSubsetsPerCpuSecond(size: number): number {
   return DEFAULT_STEPS_PER_CPU_SECOND / (size + 2);
 }
 
-/** Measured speed per size: subsets and CPU seconds of finished shards. */
-export type MeasuredThroughput = ReadonlyMap<number, { subsets: number; cpuSeconds: number }>;
+/** Measured speed per size: subsets and CPU seconds of finished shards, and how many shards measured it. */
+export type MeasuredThroughput = ReadonlyMap<number, { subsets: number; cpuSeconds: number; shards?: number }>;
 
 /** Measurements shorter than this are too noisy to trust. */
 export const MIN_MEASURED_CPU_SECONDS = 0.5;
@@ -35,6 +35,37 @@ export function estimateBySize(candidateCount: number, sizes: { min: number; max
     const { rate, measured: wasMeasured } = subsetsPerCpuSecond(size, measured);
     return { size, subsets: count, subsetsPerCpuSecond: rate, measured: wasMeasured, cpuSeconds: count / rate };
   });
+}
+
+/** Sizes as people read a list of them: `size 4`, `sizes 1 and 2`, `sizes 1 to 4`, `sizes 1, 3 and 5`. */
+function sizeList(sizes: readonly number[]): string {
+  if (sizes.length === 1) return `size ${sizes[0]}`;
+  const contiguous = sizes.every((s, i) => i === 0 || s === sizes[i - 1]! + 1);
+  if (contiguous && sizes.length > 2) return `sizes ${sizes[0]} to ${sizes.at(-1)}`;
+  return `sizes ${sizes.slice(0, -1).join(', ')} and ${sizes.at(-1)}`;
+}
+
+/**
+ * What the CPU seconds of an estimate rest on: the speed measured on finished shards of this installation, the
+ * built-in default where a size has not been measured yet, or both.
+ */
+export function speedBasis(perSize: readonly SizeEstimate[], measured: MeasuredThroughput): EstimateBasis {
+  const measuredSizes = perSize.filter((s) => s.measured).map((s) => s.size);
+  const defaultSizes = perSize.filter((s) => !s.measured).map((s) => s.size);
+  const shards = Math.round(Math.max(0, ...measuredSizes.map((size) => measured.get(size)?.shards ?? 0)));
+  const over = shards > 0 ? ` over the last ${shards === 1 ? 'shard' : `${shards} shards`}` : '';
+  if (defaultSizes.length === 0 && measuredSizes.length > 0) {
+    return { source: 'measured', samples: shards, text: `measured on this installation${over}` };
+  }
+  if (measuredSizes.length === 0) {
+    const millions = (DEFAULT_STEPS_PER_CPU_SECOND / 1e6).toLocaleString('en-US');
+    return { source: 'default', samples: 0, text: `default until measured (${millions} million / (size + 2) subsets per CPU second)` };
+  }
+  return {
+    source: 'partly measured',
+    samples: shards,
+    text: `measured on this installation for ${sizeList(measuredSizes)}${over}; default for ${sizeList(defaultSizes)} until measured`,
+  };
 }
 
 /** Everything the allowance check needs to know about the team now and the sweep to launch. */

@@ -1,7 +1,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import type { FrozenSweepDescription, SizeEstimate, SweepLaunch } from '../../../shared/schemas/sweep.js';
+import type { EstimateBasis, FrozenSweepDescription, SizeEstimate, SweepLaunch } from '../../../shared/schemas/sweep.js';
 import { checkCandidateSet } from '../../../shared/sweeps/candidate-set-check.js';
-import { estimateBySize } from '../../../shared/sweeps/sweep-estimate.js';
+import { estimateBySize, speedBasis, type MeasuredThroughput } from '../../../shared/sweeps/sweep-estimate.js';
 import { CandidateSet } from '../entities/candidate-set.js';
 import type { Project } from '../entities/project.js';
 import { Recording } from '../entities/recording.js';
@@ -18,7 +18,11 @@ export interface LaunchPlan {
   sizes: { min: number; max: number };
   perSize: SizeEstimate[];
   totalSubsets: number;
+  /** CPU seconds of the shards at the speed per size: what the team is charged, and what the allowance checks. */
   cpuSeconds: number;
+  /** The speed measured so far (the prepare step cuts shards by it too), and what the CPU seconds rest on. */
+  measured: MeasuredThroughput;
+  speed: EstimateBasis;
   warnings: string[];
 }
 
@@ -75,7 +79,8 @@ export async function planLaunch(em: EntityManager, project: Project, launch: Sw
   const sizes = { min: settings.sizes.min, max: Math.min(settings.sizes.max, candidateCount) };
   if (sizes.max < settings.sizes.max) warnings.push(`sizes.max is ${settings.sizes.max}, but the candidate set has only ${candidateCount} candidate terms: the sweep stops at ${candidateCount}.`);
 
-  const perSize = estimateBySize(candidateCount, sizes, await measuredThroughput(em));
+  const measured = await measuredThroughput(em);
+  const perSize = estimateBySize(candidateCount, sizes, measured);
   const totalSubsets = perSize.reduce((sum, s) => sum + s.subsets, 0);
   const description: FrozenSweepDescription = {
     coordinates,
@@ -98,6 +103,8 @@ export async function planLaunch(em: EntityManager, project: Project, launch: Sw
     perSize,
     totalSubsets,
     cpuSeconds: perSize.reduce((sum, s) => sum + s.cpuSeconds, 0),
+    measured,
+    speed: speedBasis(perSize, measured),
     warnings,
   };
 }
