@@ -283,6 +283,10 @@ describe('the whole job in the web app', function () {
       const subsets = page.locator('[data-test=estimate-subsets]');
       await eventually('the estimate', async () => ((await subsets.innerText().catch(() => '')) === expected.toLocaleString('en-GB') ? true : undefined), 20_000);
       expect(await page.locator('[data-test=estimate-share]').innerText()).to.match(/%$/);
+      // The estimate says what its figures rest on: measured here, or a default until measured.
+      const basis = await page.locator('[data-test=estimate-basis]').innerText();
+      expect(basis).to.match(/Speed per size: (measured on this installation|default until measured)/);
+      expect(basis).to.match(/Fixed costs: .* to prepare, .* to handle each of 7 shards on 1 thread, .* to finish; (measured on this installation over the last|default until measured)/);
       await review(page, 'launch', true);
 
       await page.locator('[data-test=launch]').click();

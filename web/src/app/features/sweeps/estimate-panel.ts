@@ -7,7 +7,8 @@ import { DurationPipe } from '../../shared/format/duration-pipe';
 
 /**
  * What a launch would cost before it is made: subsets per size, CPU time, the time it takes on the workers
- * that are running now, and the share of the team's remaining monthly allowance, with every limit it breaks.
+ * that are running now (with its fixed costs) and what these figures rest on, and the share of the team's
+ * remaining monthly allowance, with every limit it breaks.
  */
 @Component({
   selector: 'app-estimate-panel',
@@ -59,6 +60,15 @@ import { DurationPipe } from '../../shared/format/duration-pipe';
         @if (anyUnmeasured()) {
           <p class="muted small">* from a built-in rate; sizes measured on earlier sweeps use their measured rate.</p>
         }
+        <div class="basis" data-test="estimate-basis">
+          <p><span class="label">Speed per size:</span> {{ e.basis.speed.text }}.</p>
+          <p>
+            <span class="label">Fixed costs:</span>
+            {{ e.fixedCosts.prepareSeconds | duration }} to prepare, {{ e.fixedCosts.shardOverheadSeconds | duration }} to handle each of
+            {{ plural(e.shardCount, 'shard') }} on {{ plural(working(), 'thread') }}, {{ e.fixedCosts.finishSeconds | duration }} to finish;
+            {{ e.basis.fixedCosts.text }}.
+          </p>
+        </div>
         <p class="muted small">{{ plural(e.candidateCount, 'candidate') }}, {{ plural(e.knownCount, 'known term') }}, {{ plural(e.workerThreads, 'worker thread') }} running.</p>
         @for (refusal of e.refusals; track refusal.limit) {
           <div class="callout error" role="alert" data-test="estimate-refusal"><mat-icon aria-hidden="true">block</mat-icon><p>{{ refusal.message }}</p></div>
@@ -89,6 +99,9 @@ import { DurationPipe } from '../../shared/format/duration-pipe';
     .sizes th, .sizes td { padding: 4px 8px; text-align: right; border-bottom: 1px solid var(--mat-sys-outline-variant); }
     .sizes thead th { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }
     .small { margin: 4px 0; }
+    .basis { margin: 8px 0; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
+    .basis p { margin: 4px 0; }
+    .basis .label { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface); margin-right: 4px; }
     .callout { margin: 10px 0 0; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -115,6 +128,12 @@ export class EstimatePanel {
     const percent = (100 * e.cpuSeconds) / remaining;
     return percent < 0.1 && percent > 0 ? 'under 0.1 %' : `${percent < 10 ? percent.toFixed(1) : Math.round(percent)} %`;
   });
+  /** Threads that work at once: no more than there are shards. */
+  protected readonly working = computed(() => {
+    const e = this.estimate();
+    return e ? Math.max(1, Math.min(e.workerThreads, e.shardCount)) : 1;
+  });
+
   protected plural(count: number, noun: string): string {
     return `${count} ${noun}${count === 1 ? '' : 's'}`;
   }
