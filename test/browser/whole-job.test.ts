@@ -338,12 +338,16 @@ describe('the whole job in the web app', function () {
       await page.locator('[data-test=energy] .katex').waitFor({ timeout: 30_000 });
       await page.locator('[data-test=coefficients]').waitFor();
       await page.locator('app-recording-check-view app-line-chart canvas').first().waitFor();
-      // The fit residual of the energy balance: its figures per recording (both demo runs) and its chart.
+      // The fit residual of the energy balance: its figures per recording of the sweep and its chart.
       const residual = page.locator('[data-test=fit-residual]');
       await residual.locator('app-line-chart canvas').waitFor();
       expect(await residual.getByRole('img', { name: 'Fit residual of the energy balance over time' }).count()).to.equal(1);
       const residualRows = await residual.locator('[data-test=fit-residual-figures] tbody tr').allInnerTexts();
-      expect(residualRows.map((row) => row.split('\t')[0]!.trim())).to.deep.equal(['quay-crane-shift-a (training)', 'quay-crane-shift-b (training)']);
+      expect(residualRows.map((row) => row.split('\t')[0]!.trim())).to.deep.equal([
+        'quay-crane-shift-a (training)',
+        'quay-crane-shift-b (training)',
+        'quay-crane-check (validation)',
+      ]);
       await review(page, 'model', true);
 
       const download = page.waitForEvent('download');
