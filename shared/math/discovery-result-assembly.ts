@@ -28,7 +28,7 @@ export function discoveryResultOf(
     seconds,
     form: settings.form,
     balance: settings.form === 'balance' ? settings.balance : null,
-    signals: signalReport(settings, recordings, prepared.needAccelerations),
+    signals: { ...signalReport(settings, recordings, prepared.needAccelerations), noise: selection.signalNoise },
     trainingRows: prepared.training.rowCount,
     validationRows: prepared.validation?.rowCount ?? null,
     candidateCount: prepared.candidateCount,

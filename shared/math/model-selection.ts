@@ -1,4 +1,4 @@
-import type { SizeFrontEntry } from '../schemas/discovery-result.js';
+import type { CoordinateNoise, SizeFrontEntry } from '../schemas/discovery-result.js';
 import type { SweepSettings } from '../schemas/sweep-description.js';
 import type { PreparedDiscovery } from './discovery-preparation.js';
 import { workOutModel, type ModelContext, type WorkedModel } from './leaderboard-models.js';
@@ -15,6 +15,9 @@ import { kineticDegeneracy, type KineticDegeneracy } from './kinetic-degeneracy.
 import { dropNegligibleTerms, NEGLIGIBLE_ENERGY_CHANGE, type Simplification } from './negligible-terms.js';
 import { NOISE_FLOOR_FACTOR, noiseFloorRmse } from './noise-floor.js';
 import { createNormalRandom, createSeededRandom } from './seeded-random.js';
+import { measureSignalNoise } from './signal-noise.js';
+import { signalNoiseWarning } from './signal-noise-warning.js';
+import { unexplainedResidualWarning } from './unexplained-residual.js';
 import type { RankedSubset, SweepOutcome } from './sweep-problem.js';
 
 /** Fixed seed of the noise draws, so a discovery gives the same result every time it runs. */
@@ -27,6 +30,8 @@ export interface ModelSelection {
   rule: RankingRule;
   /** The first-ranked model's terms and the negligible terms left out of it, when any were. */
   simplification: { from: string[]; dropped: Simplification['dropped']; tolerance: number } | null;
+  /** How noisy each coordinate's training signals are. */
+  signalNoise: CoordinateNoise[];
   warnings: string[];
 }
 
@@ -34,8 +39,9 @@ export interface ModelSelection {
  * The finish step (design: "finish"): re-fits the leaderboard, measures each size's best model against its
  * noise floor (the front of error against size), stops growth at the floor when ranking by BIC, ranks the
  * models (model-choice.ts), leaves negligible terms out of the first one (negligible-terms.ts), and warns when
- * the data do not decide (model-choice.ts) or the chosen energy cannot drive every coordinate
- * (kinetic-degeneracy.ts).
+ * the data do not decide (model-choice.ts), the chosen energy cannot drive every coordinate
+ * (kinetic-degeneracy.ts), the estimated signals are noisy enough to bias the coefficients (signal-noise.ts)
+ * or the chosen model leaves more unexplained than noise accounts for (unexplained-residual.ts).
  */
 export function selectModels(prepared: PreparedDiscovery, settings: SweepSettings, outcome: SweepOutcome): ModelSelection {
   const warnings: string[] = [];
@@ -82,7 +88,14 @@ export function selectModels(prepared: PreparedDiscovery, settings: SweepSetting
     ? kineticDegeneracy(termsOf(chosen), chosen.coefficients, prepared.trainingSignals, prepared.symbols.velocities)
     : null;
   if (degeneracy) warnings.push(degeneracyWarning(degeneracy, prepared.symbols.velocities));
-  return { ranked, front, rule, simplification, warnings };
+  const signalNoise = measureSignalNoise(prepared.train, prepared.symbols, settings.derivatives, prepared.needAccelerations, normal);
+  const noisy = signalNoiseWarning(signalNoise, settings.derivatives);
+  if (noisy) warnings.push(noisy);
+  const unexplained = chosen
+    ? unexplainedResidualWarning({ ...chosen, noiseFloorRmse: floorOn(prepared.train)(chosen) }, prepared.training.rhs, settings.form, noisy !== null)
+    : null;
+  if (unexplained) warnings.push(unexplained);
+  return { ranked, front, rule, simplification, signalNoise, warnings };
 }
 
 /**

@@ -92,13 +92,14 @@ function modelResidual(
   return residual;
 }
 
-interface ChannelNoise {
+/** Estimated white-noise deviation of every measured channel of one recording (null: channel absent). */
+export interface ChannelNoise {
   positions: number[];
   velocities: (number | null)[];
   forces: (number | null)[] | null;
 }
 
-function channelNoise(recording: Recording): ChannelNoise {
+export function channelNoise(recording: Recording): ChannelNoise {
   const estimate = (v: Float64Array | null) => (v ? estimateWhiteNoise(v) : null);
   return {
     positions: recording.positions.map(estimateWhiteNoise),
@@ -107,7 +108,8 @@ function channelNoise(recording: Recording): ChannelNoise {
   };
 }
 
-function perturb(recording: Recording, noise: ChannelNoise, normal: () => number): Recording {
+/** The recording with fresh noise of the given deviations added to every measured channel. */
+export function perturb(recording: Recording, noise: ChannelNoise, normal: () => number): Recording {
   const add = (values: Float64Array, deviation: number) => values.map((v) => v + deviation * normal());
   const maybe = (values: Float64Array | null, deviation: number | null) =>
     values && deviation !== null ? add(values, deviation) : values;

@@ -62,6 +62,18 @@ export const simplificationSchema = z.object({
 
 export const excludedTermSchema = z.object({ term: z.string(), reason: z.string() });
 
+/** How noisy one coordinate's signals are (shared/math/signal-noise.ts). */
+export const coordinateNoiseSchema = z.object({
+  coordinate: z.string(),
+  /** Standard deviation of the white noise on its positions, estimated from the recordings, in its own unit. */
+  positionNoise: z.number(),
+  /** rms of the noise in its estimated (or measured) velocity over the rms of that velocity, noise included. */
+  velocityShare: z.number(),
+  /** The same for its estimated acceleration; null when the form needs no accelerations. */
+  accelerationShare: z.number().nullable(),
+});
+export type CoordinateNoise = z.infer<typeof coordinateNoiseSchema>;
+
 export const signalReportSchema = z.object({
   /** The estimator and its parameters as requested. */
   estimator: derivativeSettingsSchema,
@@ -69,6 +81,8 @@ export const signalReportSchema = z.object({
   description: z.string(),
   velocities: z.enum(['estimated', 'measured', 'measured and estimated']),
   accelerations: z.enum(['estimated', 'not needed']),
+  /** Per coordinate, over the training recordings; absent in results stored before it was measured. */
+  noise: z.array(coordinateNoiseSchema).optional(),
 });
 
 export const discoveryResultSchema = z.object({

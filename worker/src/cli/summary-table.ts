@@ -1,3 +1,4 @@
+import { formatNoiseShare } from '../../../shared/math/noise-share-format.js';
 import type { DiscoveryResult } from '../../../shared/schemas/discovery-result.js';
 
 /** The readable form of a result: what was done, the leaderboard as a table, the best model, warnings. */
@@ -25,10 +26,20 @@ export function summaryText(result: DiscoveryResult): string {
     lines.push(`Best energy:     E = ${result.best.energy}`, `Its Lagrangian:  L = ${result.best.lagrangian}`);
     if (result.best.notIdentifiable.length > 0) lines.push(`Not identifiable: ${result.best.notIdentifiable.join(', ')}`);
   } else lines.push('No model: every subset was rank deficient.');
+  if (result.signals.noise) lines.push(noiseLine(result.signals.noise));
   for (const e of result.excluded) lines.push(`Left out: ${e.term}: ${e.reason}.`);
   for (const w of result.warnings) lines.push(`Warning: ${w}`);
   lines.push('', result.caution);
   return lines.join('\n');
+}
+
+function noiseLine(noise: NonNullable<DiscoveryResult['signals']['noise']>): string {
+  const parts = noise.map(
+    (n) =>
+      `${n.coordinate}: position ${n.positionNoise.toPrecision(2)}, velocities ${formatNoiseShare(n.velocityShare)}` +
+      (n.accelerationShare === null ? '' : `, accelerations ${formatNoiseShare(n.accelerationShare)}`),
+  );
+  return `Noise in the training signals (estimated): ${parts.join('; ')}.`;
 }
 
 function table(rows: string[][]): string[] {
