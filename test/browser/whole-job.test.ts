@@ -317,6 +317,10 @@ describe('the whole job in the web app', function () {
       expect(versions.size, `leaderboard versions seen while running: ${[...versions].join(' | ')}`).to.be.greaterThan(1);
       await page.locator('[data-test=models]').waitFor({ timeout: 60_000 });
       expect(await page.locator('[data-test=progress-percent]').innerText()).to.equal('100 %');
+      // The noise measured in the training signals, one row per coordinate of the demo trolley (x and th).
+      const noiseRows = await page.locator('[data-test=signal-noise] tbody tr').allInnerTexts();
+      expect(noiseRows.map((row) => row.split(/\s+/)[0])).to.deep.equal(['x', 'th']);
+      for (const row of noiseRows) expect(row).to.match(/%/);
       await review(page, 'sweep-finished', true);
 
       // Sorting the leaderboard by size puts the smallest models first.

@@ -18,6 +18,7 @@ import { SweepStateBadge } from '../../shared/sweep-state-badge';
 import { ProjectNames } from '../projects/project-names';
 import { LeaderboardTable } from './leaderboard-table';
 import { ShardMap } from './shard-map';
+import { SignalNoiseTable } from './signal-noise-table';
 import { SweepModels } from './sweep-models';
 import { SweepProgress } from './sweep-progress';
 import { SweepsApi } from './sweeps-api';
@@ -40,6 +41,7 @@ import { SweepsApi } from './sweeps-api';
     LineChart,
     MathFormula,
     ShardMap,
+    SignalNoiseTable,
     SweepModels,
     SweepProgress,
     SweepStateBadge,
