@@ -1,13 +1,14 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { CsvTable } from '../../../../../shared/math/csv-recording';
 import { samplingStatistics } from '../../../../../shared/math/sampling-statistics';
+import { thinnedIndices } from '../../../../../shared/math/thinned-indices';
 import type { RecordingMappingInput } from '../../../../../shared/schemas/recording';
 import type { ChartSeries } from '../../shared/charts/line-chart';
 import { LineChart } from '../../shared/charts/line-chart';
 import { CountPipe } from '../../shared/format/count-pipe';
 import { FigurePipe } from '../../shared/format/figure-pipe';
 
-/** Points per plotted channel; every k-th sample is drawn beyond that. */
+/** Points per plotted channel at most; every k-th sample is drawn beyond that (the last one always). */
 const plotPoints = 1500;
 const decimalNumber = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
@@ -16,13 +17,6 @@ function columnNumbers(table: CsvTable, column: string): (number | null)[] | nul
   const c = table.header.indexOf(column);
   if (c < 0) return null;
   return table.rows.map((row) => (decimalNumber.test(row[c] ?? '') ? Number(row[c]) : null));
-}
-
-function thinned<T>(values: readonly T[], stride: number): T[] {
-  const kept: T[] = [];
-  for (let k = 0; k < values.length; k += stride) kept.push(values[k]!);
-  if (values.length && (values.length - 1) % stride !== 0) kept.push(values[values.length - 1]!);
-  return kept;
 }
 
 /**
@@ -81,11 +75,12 @@ export class MappingPreview {
   protected readonly plots = computed(() => {
     const time = this.time();
     if (!time) return [];
-    const stride = Math.max(1, Math.ceil(time.length / plotPoints));
-    const x = thinned(time, stride);
+    const { indices } = thinnedIndices(time.length, plotPoints);
+    const thinned = <T,>(values: readonly T[]) => indices.map((k) => values[k]!);
+    const x = thinned(time);
     const plot = (title: string, column: string | undefined): { title: string; series: ChartSeries[] } | null => {
       const values = column ? columnNumbers(this.table(), column) : null;
-      return values ? { title: `${title} · ${column}`, series: [{ name: title, x, y: thinned(values, stride) }] } : null;
+      return values ? { title: `${title} · ${column}`, series: [{ name: title, x, y: thinned(values) }] } : null;
     };
     return this.mapping()
       .coordinates.flatMap((c) => [
