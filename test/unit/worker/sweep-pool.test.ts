@@ -41,10 +41,18 @@ describe('sweep pool: the kernel on worker threads', () => {
   });
 
   it('runs a list of slices on one thread and leaves the caller\'s arrays usable', async () => {
-    const outcome = await pool.runSlices(problem, slices.slice(0, 3), options);
+    const { outcome } = await pool.runSlices(problem, slices.slice(0, 3), options);
     expect(outcome.best).to.deep.equal(evaluateSlices(problem, slices.slice(0, 3), options).best);
     expect(problem.gram.length).to.equal(26 * 26);
     expect(problem.rhs.length).to.equal(26);
+  });
+
+  it('says how much CPU time the thread spent: more than nothing, no more than the time it took', async () => {
+    const started = performance.now();
+    const { cpuSeconds } = await pool.runSlices(problem, slices, options);
+    const wall = (performance.now() - started) / 1000;
+    expect(cpuSeconds).to.be.greaterThan(0);
+    expect(cpuSeconds).to.be.at.most(wall + 0.01);
   });
 
   it('reports summed progress from the threads, ending at the totals', async () => {

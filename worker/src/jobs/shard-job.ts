@@ -1,5 +1,5 @@
 import { LockMode } from '@mikro-orm/postgresql';
-import type { SweepOutcome, SweepProgress } from '../../../shared/math/sweep-problem.js';
+import type { SweepProgress } from '../../../shared/math/sweep-problem.js';
 import { decodeProblem } from '../../../shared/sweeps/problem-encoding.js';
 import { withCoefficients } from '../../../shared/sweeps/stored-leaderboard.js';
 import { Shard } from '../../../api/src/entities/shard.js';
@@ -7,6 +7,7 @@ import { Sweep } from '../../../api/src/entities/sweep.js';
 import { notifySweepEvent } from '../../../api/src/live/sweep-events.js';
 import type { ShardJob } from '../../../api/src/queue/sweep-jobs.js';
 import { createStopFlag, requestStop } from '../pool/sweep-pool.js';
+import type { MeasuredSweep } from '../pool/sweep-task.js';
 import { mergeShard } from '../sweeps/shard-merge.js';
 import type { JobContext } from './job-context.js';
 
@@ -94,9 +95,9 @@ export async function runShardJob(ctx: JobContext, job: ShardJob, startedAt = Da
   };
   ctx.runningShards.add(stopForShutdown);
 
-  let outcome: SweepOutcome;
+  let measured: MeasuredSweep;
   try {
-    outcome = await ctx.pool.runSlices(problem, claim.slices, {
+    measured = await ctx.pool.runSlices(problem, claim.slices, {
       top: claim.top,
       stopFlag,
       progressIntervalMs: Math.min(250, ctx.config.progressMs),
@@ -111,7 +112,7 @@ export async function runShardJob(ctx: JobContext, job: ShardJob, startedAt = Da
     clearInterval(timer);
     ctx.runningShards.delete(stopForShutdown);
   }
-  const cpuSeconds = (performance.now() - runStarted) / 1000;
+  const { outcome, cpuSeconds } = measured;
 
   if ((stopReason === 'expired' || stopReason === 'shutdown') && outcome.stopped) {
     await releaseShard(ctx, job.shardId);

@@ -4,7 +4,7 @@ import { Piscina } from 'piscina';
 import { partitionSlices } from '../../../shared/math/combinations.js';
 import { mergeSweepOutcomes } from '../../../shared/math/leaderboard.js';
 import type { GramProblem, SweepOutcome, SweepProgress, SweepSlice } from '../../../shared/math/sweep-problem.js';
-import type { SweepTaskInput, SweepTaskOptions } from './sweep-task.js';
+import type { MeasuredSweep, SweepTaskInput, SweepTaskOptions } from './sweep-task.js';
 
 export interface SweepPoolOptions {
   /** Worker threads (default: os.availableParallelism()). */
@@ -55,8 +55,8 @@ export class SweepPool {
     });
   }
 
-  /** Runs a list of slices on one thread. */
-  runSlices(problem: GramProblem, slices: SweepSlice[], options: SweepRunOptions): Promise<SweepOutcome> {
+  /** Runs a list of slices on one thread; also says how much CPU time the thread spent on them. */
+  runSlices(problem: GramProblem, slices: SweepSlice[], options: SweepRunOptions): Promise<MeasuredSweep> {
     return this.runTask(problem, slices, options, options.onProgress);
   }
 
@@ -70,12 +70,15 @@ export class SweepPool {
           options.onProgress!(sumProgress(progressByTask));
         }
       : undefined;
-    const outcomes = await Promise.all(
+    const measured = await Promise.all(
       groups.map((group, task) =>
         this.runTask(problem, group, options, reportTotal && ((progress) => reportTotal(task, progress))),
       ),
     );
-    return mergeSweepOutcomes(outcomes, options.top);
+    return mergeSweepOutcomes(
+      measured.map((m) => m.outcome),
+      options.top,
+    );
   }
 
   destroy(): Promise<void> {
@@ -87,7 +90,7 @@ export class SweepPool {
     slices: SweepSlice[],
     options: SweepRunOptions,
     onProgress: ((progress: SweepProgress) => void) | undefined,
-  ): Promise<SweepOutcome> {
+  ): Promise<MeasuredSweep> {
     // Copies, so that moving them to the thread leaves the caller's arrays intact.
     const gram = problem.gram.slice();
     const rhs = problem.rhs.slice();
@@ -102,15 +105,15 @@ export class SweepPool {
     if (!onProgress) return this.piscina.run(input, { transferList });
     const { port1, port2 } = new MessageChannel();
     port1.on('message', (progress: SweepProgress) => onProgress(progress));
-    let outcome: SweepOutcome;
+    let measured: MeasuredSweep;
     try {
-      outcome = await this.piscina.run({ ...input, progressPort: port2 }, { transferList: [...transferList, port2] });
+      measured = await this.piscina.run({ ...input, progressPort: port2 }, { transferList: [...transferList, port2] });
     } finally {
       port1.close();
     }
     // The last message on the port may still be in flight; the outcome has the final counts.
-    onProgress({ evaluated: outcome.evaluated, rejected: outcome.rejected });
-    return outcome;
+    onProgress({ evaluated: measured.outcome.evaluated, rejected: measured.outcome.rejected });
+    return measured;
   }
 }
 

@@ -1,6 +1,7 @@
 import type { MessagePort } from 'node:worker_threads';
 import { evaluateSlices } from '../../../shared/math/sweep-kernel.js';
 import type { GramProblem, SweepOutcome, SweepProgress, SweepSlice } from '../../../shared/math/sweep-problem.js';
+import { threadCpuSeconds } from './thread-cpu-time.js';
 
 /** The plain-data part of SweepOptions that can cross a thread boundary. */
 export interface SweepTaskOptions {
@@ -21,10 +22,26 @@ export interface SweepTaskInput {
   progressIntervalMs?: number;
 }
 
+/** A task's outcome and the CPU seconds its thread spent on it. */
+export interface MeasuredSweep {
+  outcome: SweepOutcome;
+  /** The thread's CPU time (thread-cpu-time.ts), or its wall time on the task where the system gives none. */
+  cpuSeconds: number;
+}
+
 const DEFAULT_PROGRESS_INTERVAL_MS = 250;
 
-/** Thread entry: runs the sweep kernel over the slices on this thread and returns its outcome. */
-export default function runSweepTask(input: SweepTaskInput): SweepOutcome {
+/** Thread entry: runs the sweep kernel over the slices on this thread and returns its outcome and CPU time. */
+export default function runSweepTask(input: SweepTaskInput): MeasuredSweep {
+  const cpuAtStart = threadCpuSeconds();
+  const wallAtStart = performance.now();
+  const outcome = sweepSlices(input);
+  const cpuAtEnd = cpuAtStart === null ? null : threadCpuSeconds();
+  const cpuSeconds = cpuAtStart !== null && cpuAtEnd !== null ? cpuAtEnd - cpuAtStart : (performance.now() - wallAtStart) / 1000;
+  return { outcome, cpuSeconds };
+}
+
+function sweepSlices(input: SweepTaskInput): SweepOutcome {
   const { problem, slices, options, stopFlag, progressPort } = input;
   const interval = input.progressIntervalMs ?? DEFAULT_PROGRESS_INTERVAL_MS;
   const isStopRequested = stopFlag ? () => Atomics.load(stopFlag, 0) !== 0 : () => false;
