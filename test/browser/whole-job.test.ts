@@ -258,7 +258,8 @@ describe('the whole job in the web app', function () {
 
       await page.locator('[data-test=save-set]').click();
       await page.getByRole('heading', { name: 'Trolley and sway, degree 4', level: 1 }).waitFor();
-      expect(new URL(page.url()).pathname).to.match(/\/candidate-sets\/[0-9a-f-]{36}$/);
+      // The heading shows the saved name at once; the address follows when the router has moved to the set.
+      await page.waitForURL(/\/candidate-sets\/[0-9a-f-]{36}$/, { timeout: 10_000 });
       expectCleanPage(tab);
     });
 
