@@ -38,6 +38,7 @@ export function discoveryResultOf(
     rankingTolerance: selection.rule.tolerance,
     models: selection.ranked.map(({ columns: _columns, ...model }) => model),
     simplification: selection.simplification,
+    coefficientNoise: selection.coefficientNoise,
     front: selection.front,
     best: best
       ? {

@@ -1,4 +1,4 @@
-import type { CoordinateNoise, SizeFrontEntry } from '../schemas/discovery-result.js';
+import type { CoefficientNoiseReport, CoordinateNoise, SizeFrontEntry } from '../schemas/discovery-result.js';
 import type { SweepSettings } from '../schemas/sweep-description.js';
 import type { PreparedDiscovery } from './discovery-preparation.js';
 import { workOutModel, type ModelContext, type WorkedModel } from './leaderboard-models.js';
@@ -13,11 +13,9 @@ import {
 import { energyOnSamples } from './energy-on-samples.js';
 import { kineticDegeneracy, type KineticDegeneracy } from './kinetic-degeneracy.js';
 import { dropNegligibleTerms, NEGLIGIBLE_ENERGY_CHANGE, type Simplification } from './negligible-terms.js';
+import { diagnoseNoise } from './noise-diagnosis.js';
 import { NOISE_FLOOR_FACTOR, noiseFloorRmse } from './noise-floor.js';
 import { createNormalRandom, createSeededRandom } from './seeded-random.js';
-import { measureSignalNoise } from './signal-noise.js';
-import { signalNoiseWarning } from './signal-noise-warning.js';
-import { unexplainedResidualWarning } from './unexplained-residual.js';
 import type { RankedSubset, SweepOutcome } from './sweep-problem.js';
 
 /** Fixed seed of the noise draws, so a discovery gives the same result every time it runs. */
@@ -32,6 +30,8 @@ export interface ModelSelection {
   simplification: { from: string[]; dropped: Simplification['dropped']; tolerance: number } | null;
   /** How noisy each coordinate's training signals are. */
   signalNoise: CoordinateNoise[];
+  /** How far noise of the recorded size moves the first model's coefficients. */
+  coefficientNoise: CoefficientNoiseReport | null;
   warnings: string[];
 }
 
@@ -40,8 +40,8 @@ export interface ModelSelection {
  * noise floor (the front of error against size), stops growth at the floor when ranking by BIC, ranks the
  * models (model-choice.ts), leaves negligible terms out of the first one (negligible-terms.ts), and warns when
  * the data do not decide (model-choice.ts), the chosen energy cannot drive every coordinate
- * (kinetic-degeneracy.ts), the estimated signals are noisy enough to bias the coefficients (signal-noise.ts)
- * or the chosen model leaves more unexplained than noise accounts for (unexplained-residual.ts).
+ * (kinetic-degeneracy.ts), noise is large enough to bias the coefficients, or the chosen model leaves more
+ * unexplained than noise accounts for (noise-diagnosis.ts).
  */
 export function selectModels(prepared: PreparedDiscovery, settings: SweepSettings, outcome: SweepOutcome): ModelSelection {
   const warnings: string[] = [];
@@ -88,14 +88,9 @@ export function selectModels(prepared: PreparedDiscovery, settings: SweepSetting
     ? kineticDegeneracy(termsOf(chosen), chosen.coefficients, prepared.trainingSignals, prepared.symbols.velocities)
     : null;
   if (degeneracy) warnings.push(degeneracyWarning(degeneracy, prepared.symbols.velocities));
-  const signalNoise = measureSignalNoise(prepared.train, prepared.symbols, settings.derivatives, prepared.needAccelerations, normal);
-  const noisy = signalNoiseWarning(signalNoise, settings.derivatives);
-  if (noisy) warnings.push(noisy);
-  const unexplained = chosen
-    ? unexplainedResidualWarning({ ...chosen, noiseFloorRmse: floorOn(prepared.train)(chosen) }, prepared.training.rhs, settings.form, noisy !== null)
-    : null;
-  if (unexplained) warnings.push(unexplained);
-  return { ranked, front, rule, simplification, signalNoise, warnings };
+  const noise = diagnoseNoise(prepared, settings, chosen, floorOn(prepared.train), normal);
+  warnings.push(...noise.warnings);
+  return { ranked, front, rule, simplification, signalNoise: noise.signalNoise, coefficientNoise: noise.coefficientNoise, warnings };
 }
 
 /**

@@ -39,7 +39,8 @@ export function unexplainedResidualWarning(
   return (
     `The chosen model (${fit.terms.join(', ')}) leaves about ${Math.round(100 * share)} % of the ${side} unexplained, ` +
     'more than the noise estimated in the recordings accounts for. A term of the true energy may be missing from ' +
-    'the candidates (add terms, or raise the largest size), or the machine gains or loses energy through ' +
-    'something the recordings do not carry: friction, damping, or a drive whose force is not mapped.'
+    'the candidates (add terms, or raise the largest size); the machine may gain or lose energy through something ' +
+    'the recordings do not carry (friction, damping, a drive whose force is not mapped); or a derivative window too ' +
+    'wide for the motion may distort the signals (compare a sweep with a narrower one).'
   );
 }

@@ -74,6 +74,15 @@ export const coordinateNoiseSchema = z.object({
 });
 export type CoordinateNoise = z.infer<typeof coordinateNoiseSchema>;
 
+/** How far noise of the size the recordings carry moves the first-ranked model's coefficients (shared/math/coefficient-noise.ts). */
+export const coefficientNoiseSchema = z.object({
+  /** The fitted terms of the first model (the reference term's coefficient is fixed, so it is not among them). */
+  terms: z.array(z.string()),
+  /** Per term, the rms relative change of its coefficient when as much noise again is added: about its error from noise. */
+  shifts: z.array(z.number()),
+});
+export type CoefficientNoiseReport = z.infer<typeof coefficientNoiseSchema>;
+
 export const signalReportSchema = z.object({
   /** The estimator and its parameters as requested. */
   estimator: derivativeSettingsSchema,
@@ -111,6 +120,8 @@ export const discoveryResultSchema = z.object({
    * before the rule existed.
    */
   simplification: simplificationSchema.nullable().optional(),
+  /** The first model's coefficients under more noise; null without a model; absent in results stored before it was measured. */
+  coefficientNoise: coefficientNoiseSchema.nullable().optional(),
   front: z.array(sizeFrontEntrySchema),
   best: z
     .object({

@@ -3,12 +3,12 @@ import type { DiscoveryResult } from '../../../shared/schemas/discovery-result.j
 import { forcesOf, pendulumTorque } from '../../support/mechanisms/forcing.js';
 import { simplePendulum } from '../../support/mechanisms/handbook-mechanisms.js';
 import { withViscousDamping } from '../../support/mechanisms/viscous-damping.js';
-import { noisyDoublePendulum } from './noisy-double-pendulum.js';
+import { handbookError, noisyDoublePendulum } from './noisy-double-pendulum.js';
 import { runRecovery, type RecoveryCase } from './recovery-harness.js';
 
 // The product says when noise or a missing piece of the energy spoils a result. Cases: the double pendulum of
-// noise.test.ts (Landau & Lifshitz, Mechanics, sec. 5, problem 1) and a forced simple pendulum (sec. 5) with
-// viscous friction the recordings do not carry.
+// noise.test.ts (Landau & Lifshitz, Mechanics, sec. 5, problem 1), whose coefficient errors are measured against
+// the handbook energy, and a forced simple pendulum (sec. 5) with viscous friction the recordings do not carry.
 const noiseWarning = (result: DiscoveryResult) => result.warnings.find((w) => w.startsWith('Noise:'));
 const unexplainedWarning = (result: DiscoveryResult) => result.warnings.find((w) => w.includes('unexplained'));
 
@@ -34,6 +34,20 @@ describe('diagnosis warnings: noise in the signals, and residual that noise does
     expect(unexplainedWarning(result)).to.equal(undefined);
     expect(result.signals.noise!.map((n) => n.coordinate)).to.deep.equal(['th1', 'th2']);
     for (const n of result.signals.noise!) expect(n.velocityShare).to.be.below(1e-4);
+  });
+
+  it('the noise effect on the coefficients matches their actual error against the handbook, within a factor of 2', () => {
+    for (const sigma of [1e-3, 3e-3]) {
+      const result = runRecovery(noisyDoublePendulum('balance', sigma));
+      const error = handbookError(result.models[0]!);
+      expect(error, `handbook terms at ${sigma} rad`).not.to.equal(null);
+      const largest = Math.max(...result.coefficientNoise!.shifts);
+      expect(largest, `largest shift at ${sigma} rad against error ${error}`).to.be.within(error! / 2, 2 * error!);
+      expect(noiseWarning(result), `at ${sigma} rad`).to.match(/moves the chosen model's coefficients by up to \d/);
+    }
+    const clean = runRecovery(noisyDoublePendulum('balance', 0));
+    expect(Math.max(...clean.coefficientNoise!.shifts)).to.be.below(1e-3);
+    expect(clean.coefficientNoise!.terms).to.have.members(clean.models[0]!.terms);
   });
 
   it('1e-3 rad of position noise: the derivative form is told its accelerations are noisy and pointed to the balance form', () => {

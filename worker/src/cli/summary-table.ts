@@ -27,6 +27,7 @@ export function summaryText(result: DiscoveryResult): string {
     if (result.best.notIdentifiable.length > 0) lines.push(`Not identifiable: ${result.best.notIdentifiable.join(', ')}`);
   } else lines.push('No model: every subset was rank deficient.');
   if (result.signals.noise) lines.push(noiseLine(result.signals.noise));
+  if (result.coefficientNoise) lines.push(coefficientNoiseLine(result.coefficientNoise));
   for (const e of result.excluded) lines.push(`Left out: ${e.term}: ${e.reason}.`);
   for (const w of result.warnings) lines.push(`Warning: ${w}`);
   lines.push('', result.caution);
@@ -40,6 +41,11 @@ function noiseLine(noise: NonNullable<DiscoveryResult['signals']['noise']>): str
       (n.accelerationShare === null ? '' : `, accelerations ${formatNoiseShare(n.accelerationShare)}`),
   );
   return `Noise in the training signals (estimated): ${parts.join('; ')}.`;
+}
+
+function coefficientNoiseLine(report: NonNullable<DiscoveryResult['coefficientNoise']>): string {
+  const parts = report.terms.map((term, j) => `${term} ${formatNoiseShare(report.shifts[j]!)}`);
+  return `Noise effect on the best model's coefficients (change under as much noise again): ${parts.join(', ')}.`;
 }
 
 function table(rows: string[][]): string[] {
