@@ -322,6 +322,7 @@ describe('the whole job in the web app', function () {
       const noiseRows = await page.locator('[data-test=signal-noise] tbody tr').allInnerTexts();
       expect(noiseRows.map((row) => row.split(/\s+/)[0])).to.deep.equal(['x', 'th']);
       for (const row of noiseRows) expect(row).to.match(/%/);
+      expect(await page.locator('[data-test=coefficient-noise]').innerText()).to.match(/moves the best model's coefficients by up to .*%/);
       await review(page, 'sweep-finished', true);
 
       // Sorting the leaderboard by size puts the smallest models first.

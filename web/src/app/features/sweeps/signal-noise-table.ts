@@ -1,12 +1,12 @@
-import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import type { CoordinateNoise } from '../../../../../shared/schemas/discovery-result';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import type { CoefficientNoiseReport, CoordinateNoise } from '../../../../../shared/schemas/discovery-result';
 import { formatNoiseShare } from '../../../../../shared/math/noise-share-format';
 import { FigurePipe } from '../../shared/format/figure-pipe';
 
 /**
  * How noisy the signals of a sweep were, per coordinate: the noise on the recorded positions and the share of
- * noise in the velocities and accelerations made from them. Noise biases the coefficients, so it is shown
- * beside the models rather than left for the engineer to guess.
+ * noise in the velocities and accelerations made from them, and how far that noise moves the best model's
+ * coefficients. Noise biases the coefficients, so it is shown beside the models rather than left to guess.
  */
 @Component({
   selector: 'app-signal-noise-table',
@@ -33,17 +33,33 @@ import { FigurePipe } from '../../shared/format/figure-pipe';
         }
       </tbody>
     </table>
+    @if (largestShift(); as largest) {
+      <p class="muted shift" data-test="coefficient-noise">
+        Adding as much noise again moves the best model's coefficients by up to {{ percent(largest.shift) }}
+        (<code>{{ largest.term }}</code>): expect errors of about that size, up to twice it, from the noise in the recordings.
+      </p>
+    }
   `,
   styles: `
     .noise { border-collapse: collapse; margin-top: 12px; font: var(--mat-sys-body-small); }
     caption { text-align: left; padding-bottom: 4px; }
     th, td { padding: 4px 12px 4px 0; text-align: left; }
     .numeric { text-align: right; }
+    .shift { margin: 6px 0 0; font: var(--mat-sys-body-small); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SignalNoiseTable {
   readonly noise = input.required<readonly CoordinateNoise[]>();
+  /** The best model's coefficients under more noise, when the sweep measured it. */
+  readonly coefficients = input<CoefficientNoiseReport | null | undefined>(null);
+
+  protected readonly largestShift = computed(() => {
+    const report = this.coefficients();
+    if (!report || report.shifts.length === 0) return null;
+    const j = report.shifts.indexOf(Math.max(...report.shifts));
+    return { term: report.terms[j]!, shift: report.shifts[j]! };
+  });
 
   protected readonly percent = formatNoiseShare;
 }
