@@ -28,22 +28,10 @@ export function diagnoseNoise(
   normal: () => number,
 ): NoiseDiagnosis {
   const { train, symbols, needAccelerations, training } = prepared;
-  const signalNoise = measureSignalNoise(train, symbols, settings.derivatives, needAccelerations, normal);
+  const signalNoise = measureSignalNoise(train, prepared.trainingSignals, symbols, settings.derivatives, needAccelerations, normal);
   const fitted = chosen ? chosen.columns.map((j) => training.terms[j]!) : [];
-  const report: CoefficientNoiseReport | null = chosen
-    ? {
-        terms: fitted.map((t) => t.text),
-        shifts: coefficientNoise(
-          fitted,
-          chosen.coefficients.slice(0, fitted.length),
-          prepared.set.reference,
-          train,
-          settings,
-          symbols,
-          needAccelerations,
-          normal,
-        ).shifts,
-      }
+  const report = chosen
+    ? coefficientNoise(fitted, chosen.coefficients.slice(0, fitted.length), prepared.set.reference, train, settings, symbols, needAccelerations, normal)
     : null;
   const warnings: string[] = [];
   const noisy = signalNoiseWarning(signalNoise, report, settings.derivatives);

@@ -97,11 +97,20 @@ export function buildSystemFor(
   training: RegressionSystem,
   reference: CandidateTerm | null,
 ): RegressionSystem {
-  const rows = formRows(settings, signals, [...training.terms, ...(reference ? [reference] : [])]);
+  return { ...training, ...columnsAndRightSide(settings, signals, training.terms, reference) };
+}
+
+/** Columns of the given terms and the right side (with the reference term moved to it) over some signals. */
+export function columnsAndRightSide(
+  settings: FormSettings,
+  signals: readonly RecordingSignals[],
+  terms: readonly CandidateTerm[],
+  reference: CandidateTerm | null,
+): Pick<RegressionSystem, 'columns' | 'rhs' | 'rowCount'> {
+  const rows = formRows(settings, signals, [...terms, ...(reference ? [reference] : [])]);
   const referenceColumn = reference ? rows.columns[rows.columns.length - 1]! : null;
   return {
-    ...training,
-    columns: rows.columns.slice(0, training.terms.length),
+    columns: rows.columns.slice(0, terms.length),
     rhs: rightSide(rows, referenceColumn, settings.reference?.coefficient ?? 0),
     rowCount: rows.rowCount,
   };

@@ -1,5 +1,6 @@
 import type { CoefficientNoiseReport, CoordinateNoise } from '../schemas/discovery-result.js';
 import type { DerivativeSettings } from '../schemas/sweep-description.js';
+import { largestShift } from './largest-shift.js';
 import { formatNoiseShare } from './noise-share-format.js';
 import { describeEstimator } from './recording-signals.js';
 
@@ -8,8 +9,9 @@ import { describeEstimator } from './recording-signals.js';
  * noise again (coefficient-noise.ts), and the noise shares of its signals (signal-noise.ts). The shift tracks
  * the coefficient error itself, a little below it: on the double pendulum of test/unit/discovery/noise.test.ts
  * with 1e-4 to 3e-3 rad of position noise the error was 1.25 to 1.8 times the shift in the balance form and
- * 0.95 to 1.03 times in the derivative form (README, "What the warnings catch"). The shares catch what the shift cannot: a wrong model whose few coefficients
- * noise hardly moves, as when 14 % noise in the accelerations made the derivative form choose th1 alone.
+ * 0.95 to 1.03 times in the derivative form (README, "What the warnings catch"). The shares catch what the
+ * shift cannot: a wrong model whose few coefficients noise hardly moves, as when 14 % noise in the
+ * accelerations made the derivative form choose th1 alone.
  */
 export const COEFFICIENT_SHIFT_WARNING = 0.01;
 export const VELOCITY_NOISE_WARNING = 0.01;
@@ -58,11 +60,3 @@ export function signalNoiseWarning(
   return parts.join(' ');
 }
 
-function largestShift(report: CoefficientNoiseReport | null): { term: string; shift: number } | null {
-  if (!report || report.shifts.length === 0) return null;
-  let best = 0;
-  report.shifts.forEach((shift, j) => {
-    if (shift > report.shifts[best]!) best = j;
-  });
-  return { term: report.terms[best]!, shift: report.shifts[best]! };
-}

@@ -2,7 +2,7 @@ import type { CoordinateNoise } from '../schemas/discovery-result.js';
 import type { DerivativeSettings } from '../schemas/sweep-description.js';
 import { channelNoise, perturb } from './noise-floor.js';
 import type { Recording } from './recording.js';
-import { recordingSignals } from './recording-signals.js';
+import { recordingSignals, type RecordingSignals } from './recording-signals.js';
 import type { TermSymbols } from './term-symbols.js';
 
 /**
@@ -14,6 +14,8 @@ import type { TermSymbols } from './term-symbols.js';
  */
 export function measureSignalNoise(
   recordings: readonly Recording[],
+  /** The signals already estimated from those recordings, in the same order and with the same settings. */
+  estimated: readonly RecordingSignals[],
   symbols: TermSymbols,
   derivatives: DerivativeSettings,
   needAccelerations: boolean,
@@ -21,10 +23,9 @@ export function measureSignalNoise(
 ): CoordinateNoise[] {
   const sums = symbols.coordinates.map(() => ({ velocity: 0, velocityNoise: 0, acceleration: 0, accelerationNoise: 0 }));
   const positionNoise = symbols.coordinates.map(() => 0);
-  let recordingCount = 0;
-  for (const recording of recordings) {
+  recordings.forEach((recording, r) => {
     const noise = channelNoise(recording);
-    const clean = recordingSignals(recording, symbols, derivatives, needAccelerations);
+    const clean = estimated[r]!;
     const noisy = recordingSignals(perturb(recording, noise, normal), symbols, derivatives, needAccelerations);
     symbols.coordinates.forEach((_, i) => {
       const sum = sums[i]!;
@@ -40,8 +41,8 @@ export function measureSignalNoise(
       sum.acceleration += acceleration.signal;
       sum.accelerationNoise += acceleration.change;
     });
-    recordingCount++;
-  }
+  });
+  const recordingCount = recordings.length;
   return symbols.coordinates.map((coordinate, i) => {
     const sum = sums[i]!;
     return {

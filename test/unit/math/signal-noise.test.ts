@@ -1,8 +1,16 @@
 import { expect } from 'chai';
 import { createNormalRandom, createSeededRandom } from '../../../shared/math/seeded-random.js';
+import { recordingSignals } from '../../../shared/math/recording-signals.js';
 import { measureSignalNoise } from '../../../shared/math/signal-noise.js';
 import { TermSymbols } from '../../../shared/math/term-symbols.js';
 import type { Recording } from '../../../shared/math/recording.js';
+import type { DerivativeSettings } from '../../../shared/schemas/sweep-description.js';
+
+function noiseOf(recording: Recording, derivatives: DerivativeSettings, needAccelerations: boolean) {
+  const symbols = new TermSymbols(['x']);
+  const estimated = [recordingSignals(recording, symbols, derivatives, needAccelerations)];
+  return measureSignalNoise([recording], estimated, symbols, derivatives, needAccelerations, createNormalRandom(createSeededRandom(5)));
+}
 
 // Expected values from the variance of a weighted sum of independent samples, sum w_j^2 sigma^2 (any probability
 // handbook; from memory): the central difference (x[k+1] - x[k-1]) / 2h has noise sigma / (h sqrt 2), the second
@@ -23,7 +31,7 @@ describe('signal noise: the share of noise in estimated velocities and accelerat
   }
 
   it('estimates the position noise and the noise shares of central differences as the variance formula gives', () => {
-    const [noise] = measureSignalNoise([noisySine(3)], new TermSymbols(['x']), { method: 'central' }, true, createNormalRandom(createSeededRandom(5)));
+    const [noise] = noiseOf(noisySine(3), { method: 'central' }, true);
     expect(noise!.coordinate).to.equal('x');
     expect(noise!.positionNoise).to.be.closeTo(sigma, 0.1 * sigma);
     const share = (noise: number, signal: number) => noise / Math.hypot(noise, signal);
@@ -45,7 +53,7 @@ describe('signal noise: the share of noise in estimated velocities and accelerat
       forces: null,
     };
     const settings = { method: 'savitzky-golay', window: 9, order: 4 } as const;
-    const [noise] = measureSignalNoise([clean], new TermSymbols(['x']), settings, false, createNormalRandom(createSeededRandom(5)));
+    const [noise] = noiseOf(clean, settings, false);
     expect(noise!.accelerationShare).to.equal(null);
     expect(noise!.velocityShare).to.be.below(1e-6);
   });

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { CoefficientNoiseReport, CoordinateNoise } from '../../../../../shared/schemas/discovery-result';
+import { largestShift } from '../../../../../shared/math/largest-shift';
 import { formatNoiseShare } from '../../../../../shared/math/noise-share-format';
 import { FigurePipe } from '../../shared/format/figure-pipe';
 
@@ -54,12 +55,7 @@ export class SignalNoiseTable {
   /** The best model's coefficients under more noise, when the sweep measured it. */
   readonly coefficients = input<CoefficientNoiseReport | null | undefined>(null);
 
-  protected readonly largestShift = computed(() => {
-    const report = this.coefficients();
-    if (!report || report.shifts.length === 0) return null;
-    const j = report.shifts.indexOf(Math.max(...report.shifts));
-    return { term: report.terms[j]!, shift: report.shifts[j]! };
-  });
+  protected readonly largestShift = computed(() => largestShift(this.coefficients()));
 
   protected readonly percent = formatNoiseShare;
 }
